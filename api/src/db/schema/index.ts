@@ -1,0 +1,4 @@
+export * from './branches';
+export * from './accounts';
+export * from './users';
+export * from './system';

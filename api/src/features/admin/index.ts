@@ -1,0 +1,1 @@
+export { adminRouter } from './admin.routes';

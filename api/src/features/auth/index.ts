@@ -1,0 +1,2 @@
+export { authRouter, csrf } from './auth.routes';
+export { absoluteTimeout, createPassport, createSessionMiddleware, SESSION_COOKIE } from './session';

@@ -1,0 +1,1 @@
+export { homeRouter } from './home.routes';

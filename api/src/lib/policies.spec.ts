@@ -1,0 +1,65 @@
+import { describe, expect, it } from 'vitest';
+import type { SessionUser } from '../../../shared/src/schemas/auth';
+import { authorize, can, type Action } from './policies';
+
+const user = (role: SessionUser['role'], extra: Partial<SessionUser> = {}): SessionUser => ({
+  id: 1,
+  email: `${role}@test.example`,
+  name: role,
+  role,
+  accountId: role === 'contractor' ? 10 : null,
+  branchIds: role === 'contractor' ? [] : [1],
+  isAccountOwner: false,
+  ...extra,
+});
+
+const contractor = user('contractor');
+const tech = user('tech');
+const specialist = user('specialist');
+const admin = user('admin');
+
+describe('policy matrix', () => {
+  const matrix: [Action, Record<string, boolean>][] = [
+    ['admin.users.manage', { contractor: false, tech: false, specialist: false, admin: true }],
+    ['admin.accounts.manage', { contractor: false, tech: false, specialist: false, admin: true }],
+    ['admin.branches.manage', { contractor: false, tech: false, specialist: false, admin: true }],
+    ['home.view', { contractor: true, tech: true, specialist: true, admin: true }],
+    ['password.change', { contractor: true, tech: true, specialist: true, admin: true }],
+    ['realtime.connect', { contractor: true, tech: true, specialist: true, admin: true }],
+  ];
+  for (const [action, expected] of matrix) {
+    it(`When each role asks for ${action}, then only the expected roles may`, () => {
+      const actual = Object.fromEntries(
+        [contractor, tech, specialist, admin].map((u) => [u.role, can(u, action)]),
+      );
+      expect(actual).toEqual(expected);
+    });
+  }
+
+  it('When nobody is signed in, then nothing is allowed', () => {
+    expect(can(undefined, 'home.view')).toBe(false);
+    expect(() => authorize(null, 'home.view')).toThrowError(expect.objectContaining({ status: 401 }));
+  });
+
+  it('When a contractor asks for an account, then only their own is allowed and another answers 404', () => {
+    expect(can(contractor, 'account.view', { accountId: 10 })).toBe(true);
+    expect(can(contractor, 'account.view', { accountId: 11 })).toBe(false);
+    expect(() => authorize(contractor, 'account.view', { accountId: 11 }, 'not-found')).toThrowError(
+      expect.objectContaining({ status: 404, code: 'not_found' }),
+    );
+    expect(can(tech, 'account.view', { accountId: 11 })).toBe(true);
+  });
+
+  it('When staff ask for a branch, then techs get their own, admins every one, contractors none', () => {
+    expect(can(tech, 'branch.view', { branchId: 1 })).toBe(true);
+    expect(can(tech, 'branch.view', { branchId: 2 })).toBe(false);
+    expect(can(admin, 'branch.view', { branchId: 2 })).toBe(true);
+    expect(can(contractor, 'branch.view', { branchId: 1 })).toBe(false);
+  });
+
+  it('When a role may never take an action, then the refusal is 403', () => {
+    expect(() => authorize(tech, 'admin.users.manage')).toThrowError(
+      expect.objectContaining({ status: 403 }),
+    );
+  });
+});

@@ -1,0 +1,68 @@
+import type { Role, SessionUser } from '../../../shared/src/schemas/auth';
+import { AppError } from './errors';
+
+/**
+ * Every authorization decision of the product, in one place. Routes and socket handlers ask
+ * `can(user, action, resource)`; nothing else decides who may do what.
+ */
+export type Action =
+  | 'admin.users.manage'
+  | 'admin.accounts.manage'
+  | 'admin.branches.manage'
+  | 'home.view'
+  | 'password.change'
+  | 'account.view'
+  | 'branch.view'
+  | 'realtime.connect';
+
+export interface Resource {
+  accountId?: number | null;
+  branchId?: number | null;
+}
+
+type Rule = (user: SessionUser, resource: Resource) => boolean;
+
+const isStaff = (u: SessionUser) => u.role !== 'contractor';
+const anyone: Rule = () => true;
+const adminOnly: Rule = (u) => u.role === 'admin';
+
+const RULES: Record<Action, Rule> = {
+  'admin.users.manage': adminOnly,
+  'admin.accounts.manage': adminOnly,
+  'admin.branches.manage': adminOnly,
+  'home.view': anyone,
+  'password.change': anyone,
+  'realtime.connect': anyone,
+  // A contractor sees their own account only; staff see every account (they serve them all).
+  'account.view': (u, r) => (u.role === 'contractor' ? u.accountId === r.accountId : isStaff(u)),
+  // Admins see every branch; other staff their own; contractors none directly.
+  'branch.view': (u, r) =>
+    u.role === 'admin' || (isStaff(u) && r.branchId != null && u.branchIds.includes(r.branchId)),
+};
+
+export function can(user: SessionUser | undefined | null, action: Action, resource: Resource = {}): boolean {
+  if (!user) return false;
+  return RULES[action](user, resource);
+}
+
+/**
+ * Throws the answer a refusal deserves. Reads of another account's records answer 404 so their
+ * existence never leaks; actions a role may never take answer 403.
+ */
+export function authorize(
+  user: SessionUser | undefined | null,
+  action: Action,
+  resource: Resource = {},
+  refusal: 'forbidden' | 'not-found' = 'forbidden',
+): asserts user is SessionUser {
+  if (!user) throw AppError.unauthenticated();
+  if (can(user, action, resource)) return;
+  throw refusal === 'not-found' ? AppError.notFound() : AppError.forbidden();
+}
+
+export const ROLE_LABEL: Record<Role, string> = {
+  contractor: 'Contractor',
+  tech: 'Desk tech',
+  specialist: 'Product specialist',
+  admin: 'Admin',
+};

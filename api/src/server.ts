@@ -1,0 +1,44 @@
+import { createServer, type Server as HttpServer } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import type { Logger } from 'pino';
+import { createApp } from './app';
+import type { Config } from './config';
+import { noRealtime, type AppContext } from './context';
+import { createDb, type DbHandle } from './db/client';
+import { createLogger } from './lib/logger';
+import { attachRealtime, type Io } from './realtime/io';
+
+export interface RunningServer {
+  url: string;
+  port: number;
+  ctx: AppContext;
+  io: Io;
+  http: HttpServer;
+  stop(): Promise<void>;
+}
+
+/** Starts the API and the web app on one HTTP server; port 0 picks a free port (tests). */
+export async function startServer(config: Config, options: { logger?: Logger } = {}): Promise<RunningServer> {
+  const logger = options.logger ?? createLogger(config);
+  const dbHandle: DbHandle = createDb(config.DATABASE_URL);
+  const ctx: AppContext = { config, db: dbHandle.db, logger, realtime: noRealtime };
+  const created = createApp(ctx);
+  const http = createServer(created.app);
+  const { io, realtime } = attachRealtime(ctx, http, created);
+  ctx.realtime = realtime;
+
+  await new Promise<void>((resolve, reject) => {
+    http.once('error', reject);
+    http.listen(config.PORT, config.HOST, () => resolve());
+  });
+  const { port } = http.address() as AddressInfo;
+  const url = `http://${config.HOST.includes(':') ? `[${config.HOST}]` : config.HOST}:${port}`;
+  return { url, port, ctx, io, http, stop: () => stopServer({ io, http, dbHandle }) };
+}
+
+async function stopServer(parts: { io: Io; http: HttpServer; dbHandle: DbHandle }): Promise<void> {
+  await new Promise<void>((resolve) => parts.io.close(() => resolve()));
+  parts.http.closeAllConnections();
+  await new Promise<void>((resolve) => parts.http.close(() => resolve()));
+  await parts.dbHandle.close();
+}

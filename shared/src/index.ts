@@ -1,0 +1,5 @@
+export * from './schemas/common';
+export * from './schemas/auth';
+export * from './schemas/admin';
+export * from './schemas/home';
+export type * from './events';
