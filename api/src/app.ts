@@ -17,6 +17,10 @@ import {
 import { adminRouter } from './features/admin/index';
 import { healthRouter } from './features/health/index';
 import { homeRouter } from './features/home/index';
+import { ticketsRouter } from './features/tickets/index';
+import { attachmentsRouter } from './features/attachments/index';
+import { equipmentRouter } from './features/equipment/equipment.routes';
+import { snippetsRouter } from './features/snippets/snippets.routes';
 
 export interface CreatedApp {
   app: Express;
@@ -78,6 +82,10 @@ export function createApp(ctx: AppContext): CreatedApp {
   api.use('/auth', authRouter(ctx, pp));
   api.use('/home', homeRouter(ctx));
   api.use('/admin', adminRouter(ctx));
+  api.use('/tickets', ticketsRouter(ctx));
+  api.use('/attachments', attachmentsRouter(ctx));
+  api.use('/equipment', equipmentRouter(ctx));
+  api.use('/snippets', snippetsRouter(ctx));
   api.use((req) => {
     throw new AppError('not_found', `No such API route: ${req.method} ${req.baseUrl}${req.path}`, 404);
   });

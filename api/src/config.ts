@@ -17,6 +17,12 @@ const envSchema = z.object({
   SMTP_PORT: z.coerce.number().int().min(1).max(65_535).default(1025),
   MAIL_FROM: z.string().default('Lightoff desk <desk@harborvalley.example>'),
   MAIL_WEB_URL: z.string().url().optional(),
+  UPLOAD_DIR: z.string().default('.data/uploads'),
+  S3_BUCKET: z.string().optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_ENDPOINT: z.string().url().optional(),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
   LOGIN_LIMIT_PER_EMAIL: z.coerce.number().int().min(1).default(5),
   LOGIN_LIMIT_PER_IP: z.coerce.number().int().min(1).default(100),
 });

@@ -1,7 +1,9 @@
 import type { Logger } from 'pino';
 import type { Config } from './config';
 import type { Db } from './db/client';
+import type { FileStorage } from './features/attachments/storage';
 import type { ServerToClientEvents } from '../../shared/src/events';
+import type { Message } from '../../shared/src/schemas/tickets';
 
 type SessionEndReason = Parameters<ServerToClientEvents['session:ended']>[0]['reason'];
 
@@ -12,6 +14,14 @@ export interface Realtime {
     event: E,
     ...args: Parameters<ServerToClientEvents[E]>
   ): void;
+  /** Sends an event to every socket in the given rooms. */
+  emit<E extends keyof ServerToClientEvents>(
+    rooms: string[],
+    event: E,
+    ...args: Parameters<ServerToClientEvents[E]>
+  ): void;
+  /** Sends a new message to the given rooms; resolves with how many sockets acknowledged it. */
+  deliver(rooms: string[], message: Message): Promise<number>;
   /** Tells the sockets of one session that it ended, then closes them. */
   endSession(sessionId: string, reason: SessionEndReason): void;
   /** The same for every session of a user, except optionally one (the one making the change). */
@@ -23,6 +33,13 @@ export interface AppContext {
   db: Db;
   logger: Logger;
   realtime: Realtime;
+  storage: FileStorage;
 }
 
-export const noRealtime: Realtime = { toUser() {}, endSession() {}, endUserSessions() {} };
+export const noRealtime: Realtime = {
+  toUser() {},
+  emit() {},
+  deliver: async () => 0,
+  endSession() {},
+  endUserSessions() {},
+};

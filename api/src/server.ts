@@ -7,6 +7,21 @@ import { noRealtime, type AppContext } from './context';
 import { createDb, type DbHandle } from './db/client';
 import { createLogger } from './lib/logger';
 import { attachRealtime, type Io } from './realtime/io';
+import { DiskStorage, S3Storage, type FileStorage } from './features/attachments/storage';
+
+/** S3 when a bucket is configured, else a folder on local disk. */
+function createStorage(config: Config): FileStorage {
+  if (config.S3_BUCKET) {
+    return S3Storage.fromConfig({
+      bucket: config.S3_BUCKET,
+      region: config.S3_REGION,
+      endpoint: config.S3_ENDPOINT,
+      accessKeyId: config.S3_ACCESS_KEY_ID,
+      secretAccessKey: config.S3_SECRET_ACCESS_KEY,
+    });
+  }
+  return new DiskStorage(config.UPLOAD_DIR);
+}
 
 export interface RunningServer {
   url: string;
@@ -21,7 +36,13 @@ export interface RunningServer {
 export async function startServer(config: Config, options: { logger?: Logger } = {}): Promise<RunningServer> {
   const logger = options.logger ?? createLogger(config);
   const dbHandle: DbHandle = createDb(config.DATABASE_URL);
-  const ctx: AppContext = { config, db: dbHandle.db, logger, realtime: noRealtime };
+  const ctx: AppContext = {
+    config,
+    db: dbHandle.db,
+    logger,
+    realtime: noRealtime,
+    storage: createStorage(config),
+  };
   const created = createApp(ctx);
   const http = createServer(created.app);
   const { io, realtime } = attachRealtime(ctx, http, created);

@@ -3,3 +3,4 @@ export * from './schemas/auth';
 export * from './schemas/admin';
 export * from './schemas/home';
 export type * from './events';
+export * from './schemas/tickets';

@@ -92,3 +92,20 @@ export async function makeUser(
   }
   return { id: row!.id, email, password: TEST_PASSWORD, role, accountId, branchIds };
 }
+
+export async function makeEquipmentModel(
+  overrides: { modelNumber?: string; type?: 'furnace' | 'boiler' } = {},
+) {
+  const { equipmentModels } = await import('../../api/src/db/schema/index');
+  const [row] = await testDb()
+    .db.insert(equipmentModels)
+    .values({
+      brand: 'Corvane',
+      modelNumber: overrides.modelNumber ?? `TST-${randomLetters(6)}`,
+      family: 'Test furnace',
+      type: overrides.type ?? 'furnace',
+      fuels: ['natural-gas', 'propane'],
+    })
+    .returning();
+  return row!;
+}

@@ -70,7 +70,10 @@ export class TestClient {
   }
 }
 
-export async function signedInClient(server: RunningServer, user: MadeUser): Promise<TestClient> {
+export async function signedInClient(
+  server: RunningServer,
+  user: Pick<MadeUser, 'email' | 'password'>,
+): Promise<TestClient> {
   const client = new TestClient(server);
   await client.signIn(user);
   return client;

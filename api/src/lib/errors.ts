@@ -71,7 +71,18 @@ export function handleError(err: unknown, logger?: Logger): { status: number; bo
 function toAppError(err: unknown): AppError {
   if (err instanceof AppError) return err;
   if (err instanceof ZodError) return AppError.validation(fieldsFromZod(err));
-  const e = err as { type?: string; status?: number; code?: string };
+  const e = err as { type?: string; status?: number; code?: string; name?: string };
+  if (e?.name === 'MulterError') {
+    if (e.code === 'LIMIT_FILE_SIZE')
+      return new AppError('payload_too_large', 'Each file can be at most 15 MB', 413);
+    if (e.code === 'LIMIT_FILE_COUNT' || e.code === 'LIMIT_UNEXPECTED_FILE') {
+      return AppError.validation(
+        { files: 'Send at most 10 files at a time, in the `files` field' },
+        'Too many files',
+      );
+    }
+    return AppError.validation({ files: 'The upload could not be read' });
+  }
   if (e?.type === 'entity.too.large') {
     return new AppError('payload_too_large', 'The request body is too large (1 MB at most)', 413);
   }

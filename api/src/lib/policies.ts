@@ -13,17 +13,34 @@ export type Action =
   | 'password.change'
   | 'account.view'
   | 'branch.view'
-  | 'realtime.connect';
+  | 'realtime.connect'
+  | 'equipment.search'
+  | 'ticket.create'
+  | 'ticket.view'
+  | 'ticket.manage'
+  | 'ticket.resolve-own'
+  | 'note.view'
+  | 'note.post'
+  | 'snippet.use'
+  | 'snippet.edit';
 
 export interface Resource {
   accountId?: number | null;
   branchId?: number | null;
+  assigneeId?: number | null;
+  ownerId?: number | null;
+  createdById?: number | null;
 }
 
 type Rule = (user: SessionUser, resource: Resource) => boolean;
 
 const isStaff = (u: SessionUser) => u.role !== 'contractor';
 const anyone: Rule = () => true;
+const staffOnly: Rule = (u) => isStaff(u);
+/** Staff see the tickets of their branches and the ones assigned to them; admins see all. */
+const staffSeesTicket: Rule = (u, r) =>
+  u.role === 'admin' ||
+  (isStaff(u) && ((r.branchId != null && u.branchIds.includes(r.branchId)) || r.assigneeId === u.id));
 const adminOnly: Rule = (u) => u.role === 'admin';
 
 const RULES: Record<Action, Rule> = {
@@ -33,6 +50,23 @@ const RULES: Record<Action, Rule> = {
   'home.view': anyone,
   'password.change': anyone,
   'realtime.connect': anyone,
+  'equipment.search': anyone,
+  // Contractors open tickets for their own account only.
+  'ticket.create': (u, r) => u.role === 'contractor' && u.accountId != null && u.accountId === r.accountId,
+  'ticket.view': (u, r) => (u.role === 'contractor' ? u.accountId === r.accountId : staffSeesTicket(u, r)),
+  'ticket.manage': staffSeesTicket,
+  // A contractor may mark their own account's ticket solved, or reopen it (within 14 days: the service).
+  'ticket.resolve-own': (u, r) => u.role === 'contractor' && u.accountId === r.accountId,
+  // Internal notes never reach contractors.
+  'note.view': staffOnly,
+  'note.post': staffOnly,
+  'snippet.use': staffOnly,
+  // Personal snippets: their owner. Shared ones: whoever made them, specialists and admins.
+  'snippet.edit': (u, r) =>
+    isStaff(u) &&
+    (r.ownerId != null
+      ? r.ownerId === u.id
+      : r.createdById === u.id || u.role === 'specialist' || u.role === 'admin'),
   // A contractor sees their own account only; staff see every account (they serve them all).
   'account.view': (u, r) => (u.role === 'contractor' ? u.accountId === r.accountId : isStaff(u)),
   // Admins see every branch; other staff their own; contractors none directly.

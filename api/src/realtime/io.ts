@@ -4,8 +4,13 @@ import type passport from 'passport';
 import { Server } from 'socket.io';
 import type { ClientToServerEvents, ServerToClientEvents, SocketData } from '../../../shared/src/events';
 import type { Realtime, AppContext } from '../context';
-import { handleError } from '../lib/errors';
 import { can } from '../lib/policies';
+import { rooms } from '../features/tickets/rooms';
+import { registerTicketHandlers } from '../features/tickets/tickets.socket';
+import { announcePresence } from './presence';
+
+/** Each feature registers its socket handlers here, like routers in app.ts. */
+const FEATURE_HANDLERS = [registerTicketHandlers];
 
 export type Io = Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
 
@@ -51,13 +56,17 @@ export function attachRealtime(
 
   io.on('connection', (socket) => {
     const { user, sessionId } = socket.data;
-    void socket.join([`user:${user.id}`, `session:${sessionId}`]);
+    const joined = [rooms.user(user.id), rooms.session(sessionId)];
+    if (user.role === 'contractor' && user.accountId) joined.push(rooms.account(user.accountId));
+    else joined.push(rooms.staff, ...user.branchIds.map(rooms.desk));
+    void socket.join(joined);
     socket.on('session:whoami', (ack) => {
-      try {
-        ack({ ok: true, user: socket.data.user });
-      } catch (err) {
-        ack({ ok: false, error: handleError(err, ctx.logger).body.error });
-      }
+      if (typeof ack === 'function') ack({ ok: true, user: socket.data.user });
+    });
+    for (const register of FEATURE_HANDLERS) register(ctx, io, socket);
+    if (user.role !== 'contractor') void announcePresence(io);
+    socket.on('disconnect', () => {
+      if (user.role !== 'contractor') void announcePresence(io);
     });
   });
 
@@ -70,6 +79,17 @@ export function attachRealtime(
     toUser: (userId, event, ...args) => {
       io.to(`user:${userId}`).emit(event, ...args);
     },
+    emit: (targets, event, ...args) => {
+      if (targets.length) io.to(targets).emit(event, ...args);
+    },
+    deliver: (targets, message) =>
+      new Promise((resolve) => {
+        if (!targets.length) return resolve(0);
+        // Every socket in the rooms acks; sockets that miss the 5 s window simply do not count.
+        io.to(targets)
+          .timeout(5_000)
+          .emit('message:new', { message }, (_err: unknown, acks: unknown[] = []) => resolve(acks.length));
+      }),
     endSession: (sessionId, reason) => endRoom(`session:${sessionId}`, reason),
     endUserSessions: (userId, reason, exceptSessionId) => {
       const target = exceptSessionId

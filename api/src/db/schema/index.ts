@@ -2,3 +2,4 @@ export * from './branches';
 export * from './accounts';
 export * from './users';
 export * from './system';
+export * from './tickets';

@@ -15,15 +15,13 @@ export function healthRouter(ctx: AppContext): Router {
     res.set('Cache-Control', 'no-store');
     const down = await databaseDown(ctx);
     if (down) {
-      res
-        .status(503)
-        .json({
-          error: {
-            code: 'not_ready',
-            message: `The database does not answer: ${down}`,
-            fields: { database: 'down' },
-          },
-        });
+      res.status(503).json({
+        error: {
+          code: 'not_ready',
+          message: `The database does not answer: ${down}`,
+          fields: { database: 'down' },
+        },
+      });
       return;
     }
     res.json({ status: 'ok', checks: { database: 'up' } });

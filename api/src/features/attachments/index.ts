@@ -1,0 +1,1 @@
+export { attachmentsRouter } from './attachments.routes';

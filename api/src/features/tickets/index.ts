@@ -1,0 +1,2 @@
+export { ticketsRouter } from './tickets.routes';
+export { registerTicketHandlers } from './tickets.socket';

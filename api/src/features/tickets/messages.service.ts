@@ -1,0 +1,117 @@
+import { eq, sql } from 'drizzle-orm';
+import type { AppContext } from '../../context';
+import type { Message, MessageCreate, SessionUser } from '../../../../shared/src/index';
+import { tickets } from '../../db/schema/index';
+import { AppError } from '../../lib/errors';
+import { authorize, can } from '../../lib/policies';
+import * as messages from './messages.repository';
+import * as ticketsRepo from './tickets.repository';
+import { rooms } from './rooms';
+import { announce, loadScope } from './tickets.service';
+
+export async function listMessages(
+  ctx: AppContext,
+  user: SessionUser | undefined,
+  ticketId: number,
+  q: { after?: number; limit: number },
+) {
+  await loadScope(ctx.db, user, ticketId);
+  return messages.listMessages(ctx.db, ticketId, { ...q, includeNotes: can(user, 'note.view') });
+}
+
+/**
+ * Stores a message (once per clientId) and only then tells anyone: the caller acknowledges after
+ * this resolves, so an acknowledged message is always in the database.
+ */
+export async function postMessage(
+  ctx: AppContext,
+  user: SessionUser,
+  ticketId: number,
+  input: MessageCreate,
+): Promise<Message> {
+  const scope = await loadScope(ctx.db, user, ticketId);
+  if (input.kind === 'internal-note') authorize(user, 'note.post', scope);
+  const isStaff = user.role !== 'contractor';
+  const { id, created } = await ctx.db.transaction(async (tx) => {
+    const result = await messages.insertMessageOnce(tx, {
+      ticketId,
+      authorId: user.id,
+      kind: input.kind,
+      body: input.body,
+      clientId: input.clientId,
+    });
+    if (!result.created) return result;
+    const linked = await messages.linkAttachments(tx, result.id, ticketId, user.id, input.attachmentIds);
+    if (linked !== new Set(input.attachmentIds).size) {
+      throw AppError.validation({
+        attachmentIds: 'Some photos were not uploaded to this ticket by you, or are already sent',
+      });
+    }
+    const statusNow = scope.status;
+    let nextStatus: typeof statusNow | undefined;
+    if (input.kind === 'message') {
+      if (isStaff && statusNow === 'new') nextStatus = 'open';
+      if (!isStaff && statusNow === 'waiting-on-contractor') nextStatus = 'open';
+    }
+    await tx
+      .update(tickets)
+      .set({
+        lastMessageAt: new Date(),
+        updatedAt: new Date(),
+        ...(nextStatus ? { status: nextStatus } : {}),
+        ...(isStaff && input.kind === 'message'
+          ? { firstResponseAt: sql`coalesce(${tickets.firstResponseAt}, now())` }
+          : {}),
+      })
+      .where(eq(tickets.id, ticketId));
+    if (nextStatus) {
+      await ticketsRepo.insertEvents(tx, [
+        { ticketId, actorId: user.id, field: 'status', fromValue: statusNow, toValue: nextStatus },
+      ]);
+    }
+    return result;
+  });
+  const message = (await messages.findMessage(ctx.db, id))!;
+  if (created) void fanOut(ctx, message, user);
+  return message;
+}
+
+/** After the commit: the author's side sees it; the other side acks it, which marks it delivered. */
+async function fanOut(ctx: AppContext, message: Message, author: SessionUser) {
+  try {
+    const ticketId = message.ticketId;
+    const ticket = await ticketsRepo.findTicket(ctx.db, ticketId);
+    if (ticket) announce(ctx, ticket);
+    if (message.kind === 'internal-note') {
+      ctx.realtime.emit([rooms.ticketStaff(ticketId)], 'message:new', { message });
+      return;
+    }
+    const authorIsStaff = author.role !== 'contractor';
+    const own = authorIsStaff ? rooms.ticketStaff(ticketId) : rooms.ticketContractor(ticketId);
+    const other = authorIsStaff ? rooms.ticketContractor(ticketId) : rooms.ticketStaff(ticketId);
+    ctx.realtime.emit([own], 'message:new', { message });
+    if ((await ctx.realtime.deliver([other], message)) > 0) {
+      await messages.markDelivered(ctx.db, message.id);
+      ctx.realtime.emit([rooms.ticket(ticketId)], 'message:status', {
+        ticketId,
+        messageIds: [message.id],
+        deliveredAt: new Date().toISOString(),
+      });
+    }
+  } catch (err) {
+    ctx.logger.warn({ err, messageId: message.id }, 'message fan-out failed');
+  }
+}
+
+export async function markRead(ctx: AppContext, user: SessionUser, ticketId: number, messageId: number) {
+  await loadScope(ctx.db, user, ticketId);
+  const ids = await messages.markRead(ctx.db, ticketId, messageId, user.role !== 'contractor');
+  if (ids.length) {
+    ctx.realtime.emit([rooms.ticket(ticketId)], 'message:status', {
+      ticketId,
+      messageIds: ids,
+      readAt: new Date().toISOString(),
+    });
+  }
+  return ids;
+}

@@ -1,0 +1,74 @@
+import { Router } from 'express';
+import type { AppContext } from '../../context';
+import {
+  idParamsSchema,
+  messageCreateSchema,
+  messageListQuerySchema,
+  ticketCreateSchema,
+  ticketListQuerySchema,
+  ticketUpdateSchema,
+} from '../../../../shared/src/index';
+import { authorize } from '../../lib/policies';
+import { parsed, validate } from '../../lib/validate';
+import { ticketAttachmentsRouter } from '../attachments/attachments.routes';
+import { listMessages, postMessage } from './messages.service';
+import { claimTicket, createTicket, getTicket, listTickets, updateTicket } from './tickets.service';
+
+const ticketId = (res: { locals: Record<string, unknown> }) => parsed(res, 'params', idParamsSchema).id;
+
+export function ticketsRouter(ctx: AppContext): Router {
+  const router = Router();
+  const byId = validate('params', idParamsSchema);
+
+  /** POST /api/tickets — contractor: open a ticket for my account. */
+  router.post('/', validate('body', ticketCreateSchema), async (req, res) => {
+    authorize(req.user, 'ticket.create', { accountId: req.user?.accountId ?? -1 });
+    res
+      .status(201)
+      .json({ ticket: await createTicket(ctx, req.user, parsed(res, 'body', ticketCreateSchema)) });
+  });
+
+  /** GET /api/tickets — contractor: my account's; staff: my branches' and mine; admin: all. */
+  router.get('/', validate('query', ticketListQuerySchema), async (req, res) => {
+    authorize(req.user, 'home.view');
+    res.json(await listTickets(ctx, req.user, parsed(res, 'query', ticketListQuerySchema)));
+  });
+
+  /** GET /api/tickets/:id — whoever may see it (others: 404). */
+  router.get('/:id', byId, async (req, res) => {
+    res.json({ ticket: await getTicket(ctx, req.user, ticketId(res)) });
+  });
+
+  /** PATCH /api/tickets/:id — staff: status, assignee, branch, urgency; contractor: resolve or reopen. */
+  router.patch('/:id', byId, validate('body', ticketUpdateSchema), async (req, res) => {
+    authorize(req.user, 'home.view');
+    res.json({
+      ticket: await updateTicket(ctx, req.user, ticketId(res), parsed(res, 'body', ticketUpdateSchema)),
+    });
+  });
+
+  /** POST /api/tickets/:id/claim — staff: assign it to me. */
+  router.post('/:id/claim', byId, async (req, res) => {
+    authorize(req.user, 'home.view');
+    res.json({ ticket: await claimTicket(ctx, req.user, ticketId(res)) });
+  });
+
+  /** GET /api/tickets/:id/messages?after=&limit= — whoever may see it; notes for staff only. */
+  router.get('/:id/messages', byId, validate('query', messageListQuerySchema), async (req, res) => {
+    const q = parsed(res, 'query', messageListQuerySchema);
+    res.json({ items: await listMessages(ctx, req.user, ticketId(res), q) });
+  });
+
+  /** POST /api/tickets/:id/messages — whoever may see it; the same clientId twice stores one message. */
+  router.post('/:id/messages', byId, validate('body', messageCreateSchema), async (req, res) => {
+    authorize(req.user, 'home.view');
+    res
+      .status(201)
+      .json({
+        message: await postMessage(ctx, req.user, ticketId(res), parsed(res, 'body', messageCreateSchema)),
+      });
+  });
+
+  router.use('/:id/attachments', ticketAttachmentsRouter(ctx));
+  return router;
+}

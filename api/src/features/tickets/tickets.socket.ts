@@ -1,0 +1,134 @@
+import type { Socket } from 'socket.io';
+import { z } from 'zod';
+import type { AppContext } from '../../context';
+import type {
+  Ack,
+  ClientToServerEvents,
+  ServerToClientEvents,
+  SocketData,
+} from '../../../../shared/src/events';
+import { clientIdSchema, MAX_MESSAGE_LENGTH } from '../../../../shared/src/index';
+import { messageCreateSchema } from '../../../../shared/src/index';
+import { AppError, handleError } from '../../lib/errors';
+import { can } from '../../lib/policies';
+import type { Io } from '../../realtime/io';
+import { deskPresence } from '../../realtime/presence';
+import { markRead, postMessage } from './messages.service';
+import { rooms } from './rooms';
+import { loadScope } from './tickets.service';
+
+type AppSocket = Socket<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
+
+const ticketRef = z.object({ ticketId: z.number().int().positive() });
+const readSchema = ticketRef.extend({ messageId: z.number().int().positive() });
+const sendSchema = z.object({
+  ticketId: z.number().int().positive(),
+  clientId: clientIdSchema,
+  body: z
+    .string()
+    .max(MAX_MESSAGE_LENGTH, `Messages are at most ${MAX_MESSAGE_LENGTH} characters`)
+    .default(''),
+  kind: z.enum(['message', 'internal-note']).default('message'),
+  attachmentIds: z.array(z.number().int().positive()).max(10).default([]),
+});
+
+const SEND_LIMIT = 20;
+const SEND_WINDOW_MS = 10_000;
+const TYPING_EVERY_MS = 2_000;
+
+/** Wraps a handler: parse, run, ack with the result or with the public error. */
+function handler<T, R extends object>(
+  ctx: AppContext,
+  schema: z.ZodType<T>,
+  run: (payload: T) => Promise<R>,
+): (payload: unknown, ack?: (res: Ack<R>) => void) => void {
+  return (payload, ack) => {
+    const reply = typeof ack === 'function' ? ack : () => {};
+    const parsed = schema.safeParse(payload);
+    if (!parsed.success) {
+      const fields = Object.fromEntries(parsed.error.issues.map((i) => [i.path.join('.') || '_', i.message]));
+      reply({
+        ok: false,
+        error: { code: 'validation_failed', message: 'Some fields need attention', fields },
+      });
+      return;
+    }
+    run(parsed.data).then(
+      (result) => reply({ ok: true, ...result } as Ack<R>),
+      (err) => reply({ ok: false, error: handleError(err, ctx.logger).body.error }),
+    );
+  };
+}
+
+export function registerTicketHandlers(ctx: AppContext, io: Io, socket: AppSocket) {
+  const user = () => socket.data.user;
+  // Per-socket send budget: a sliding window of timestamps (this socket's own, not shared state).
+  const sent: number[] = [];
+  let lastTyping = 0;
+
+  socket.on(
+    'ticket:join',
+    handler(ctx, ticketRef, async ({ ticketId }) => {
+      await loadScope(ctx.db, user(), ticketId);
+      const side = can(user(), 'note.view') ? rooms.ticketStaff(ticketId) : rooms.ticketContractor(ticketId);
+      await socket.join([rooms.ticket(ticketId), side]);
+      return {};
+    }),
+  );
+
+  socket.on(
+    'ticket:leave',
+    handler(ctx, ticketRef, async ({ ticketId }) => {
+      await socket.leave(rooms.ticket(ticketId));
+      await socket.leave(rooms.ticketStaff(ticketId));
+      await socket.leave(rooms.ticketContractor(ticketId));
+      return {};
+    }),
+  );
+
+  socket.on(
+    'message:send',
+    handler(ctx, sendSchema, async (payload) => {
+      const now = Date.now();
+      while (sent.length && now - sent[0]! > SEND_WINDOW_MS) sent.shift();
+      if (sent.length >= SEND_LIMIT) {
+        throw new AppError('rate_limited', `Slow down: at most ${SEND_LIMIT} messages in 10 seconds`, 429);
+      }
+      sent.push(now);
+      const input = messageCreateSchema.parse(payload);
+      const message = await postMessage(ctx, user(), payload.ticketId, input);
+      return { message };
+    }),
+  );
+
+  socket.on(
+    'message:read',
+    handler(ctx, readSchema, async ({ ticketId, messageId }) => {
+      await markRead(ctx, user(), ticketId, messageId);
+      return {};
+    }),
+  );
+
+  socket.on('typing', (payload) => {
+    const parsed = ticketRef.safeParse(payload);
+    const now = Date.now();
+    if (!parsed.success || now - lastTyping < TYPING_EVERY_MS) return;
+    const { ticketId } = parsed.data;
+    // Only a socket that joined the ticket (and so passed its authorization) may say it is typing.
+    if (!socket.rooms.has(rooms.ticket(ticketId))) return;
+    lastTyping = now;
+    socket.to(rooms.ticket(ticketId)).emit('typing', { ticketId, userId: user().id, name: user().name });
+  });
+
+  socket.on('presence:list', (ack) => {
+    if (typeof ack !== 'function') return;
+    if (!can(user(), 'note.view')) {
+      ack({ ok: false, error: { code: 'forbidden', message: 'Desk presence is for staff' } });
+      return;
+    }
+    deskPresence(io).then(
+      (online) => ack({ ok: true, online }),
+      (err) => ack({ ok: false, error: handleError(err, ctx.logger).body.error }),
+    );
+  });
+}
