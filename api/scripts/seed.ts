@@ -1,6 +1,8 @@
 // Seeds the demo scenario into DATABASE_URL (idempotent: run it as often as you like).
 import { createDb } from '../src/db/client';
 import { seedDemo } from '../src/db/seed/demo';
+import { seedEquipment, seedTickets } from '../src/db/seed/tickets';
+import { DiskStorage } from '../src/features/attachments/storage';
 
 const url = process.env.DATABASE_URL;
 if (!url) {
@@ -8,10 +10,18 @@ if (!url) {
   process.exit(1);
 }
 const handle = createDb(url, { max: 2 });
-seedDemo(handle.db)
-  .then(({ created }) =>
-    console.log(created ? `demo seeded: ${created} people added` : 'demo already seeded'),
-  )
+const storage = new DiskStorage(process.env.UPLOAD_DIR ?? '.data/uploads');
+
+async function main() {
+  const { created } = await seedDemo(handle.db);
+  await seedEquipment(handle.db);
+  const tickets = await seedTickets(handle.db, storage);
+  console.log(
+    created || tickets ? `demo seeded: ${created} people, ${tickets} tickets added` : 'demo already seeded',
+  );
+}
+
+main()
   .catch((err) => {
     console.error('seed failed:', err);
     process.exitCode = 1;
