@@ -57,7 +57,7 @@ export function createApp(ctx: AppContext): CreatedApp {
           // Element Plus positions popovers with inline styles.
           styleSrc: ["'self'", "'unsafe-inline'"],
           imgSrc: ["'self'", 'data:', 'blob:'],
-          fontSrc: ["'self'", 'data:'],
+          fontSrc: ["'self'"],
           connectSrc: ["'self'", 'ws:', 'wss:'],
           workerSrc: ["'self'", 'blob:'],
           manifestSrc: ["'self'"],

@@ -1,10 +1,10 @@
 import { z } from 'zod';
 import { emailSchema } from './common';
 
-export const ROLES = ['contractor', 'tech', 'specialist', 'admin'] as const;
+import { ROLES } from '../roles';
+
+export { ROLES, STAFF_ROLES, type Role } from '../roles';
 export const roleSchema = z.enum(ROLES);
-export type Role = z.infer<typeof roleSchema>;
-export const STAFF_ROLES: readonly Role[] = ['tech', 'specialist', 'admin'];
 
 /** Passwords: at least 10 characters, at most 64 (long passphrases welcome). */
 export const passwordSchema = z

@@ -1,0 +1,101 @@
+import type { RouteRecordInfo, RouteRecordRaw } from 'vue-router';
+import type { Role } from '@shared/schemas/auth';
+import { ALL_ROLES, STAFF_ROLES } from '@/api/roles';
+import SignInView from '@/views/SignInView.vue';
+
+type NoParams = Record<never, never>;
+type Info<Name extends string, Path extends string> = RouteRecordInfo<Name, Path, NoParams, NoParams>;
+
+/** Every named route, so `router.push({ name })` is checked by the compiler. */
+export interface RouteNamedMap {
+  root: Info<'root', '/'>;
+  'sign-in': Info<'sign-in', '/sign-in'>;
+  'contractor-home': Info<'contractor-home', '/company'>;
+  'staff-home': Info<'staff-home', '/desk'>;
+  password: Info<'password', '/password'>;
+  'admin-users': Info<'admin-users', '/admin/users'>;
+  'admin-accounts': Info<'admin-accounts', '/admin/accounts'>;
+  'admin-branches': Info<'admin-branches', '/admin/branches'>;
+  'not-found': RouteRecordInfo<
+    'not-found',
+    '/:pathMatch(.*)*',
+    { pathMatch: string | string[] },
+    { pathMatch: string[] }
+  >;
+}
+export type RouteName = keyof RouteNamedMap;
+
+declare module 'vue-router' {
+  interface TypesConfig {
+    RouteNamedMap: RouteNamedMap;
+  }
+  interface RouteMeta {
+    /** Who may open the route; none means anyone. */
+    roles?: readonly Role[];
+    /** Only for people who are not signed in (sign-in itself). */
+    guestOnly?: boolean;
+    /** Message key of the page title. */
+    title?: string;
+    /** Narrow, touch-first layout (contractor screens). */
+    touch?: boolean;
+  }
+}
+
+export type HomeRoute = { name: 'contractor-home' } | { name: 'staff-home' };
+
+export function homeFor(role: Role): HomeRoute {
+  return role === 'contractor' ? { name: 'contractor-home' } : { name: 'staff-home' };
+}
+
+export const routes: RouteRecordRaw[] = [
+  // Sign-in sends whoever is already signed in on to their home.
+  { path: '/', name: 'root', redirect: { name: 'sign-in' } },
+  {
+    path: '/sign-in',
+    name: 'sign-in',
+    component: SignInView,
+    meta: { guestOnly: true, title: 'signIn.title', touch: true },
+  },
+  {
+    path: '/company',
+    name: 'contractor-home',
+    component: () => import('@/views/ContractorHomeView.vue'),
+    meta: { roles: ['contractor'], title: 'contractorHome.title', touch: true },
+  },
+  {
+    path: '/desk',
+    name: 'staff-home',
+    component: () => import('@/views/StaffHomeView.vue'),
+    meta: { roles: STAFF_ROLES, title: 'staffHome.title' },
+  },
+  {
+    path: '/password',
+    name: 'password',
+    component: () => import('@/views/PasswordView.vue'),
+    meta: { roles: ALL_ROLES, title: 'password.title', touch: true },
+  },
+  {
+    path: '/admin/users',
+    name: 'admin-users',
+    component: () => import('@/views/AdminUsersView.vue'),
+    meta: { roles: ['admin'], title: 'adminUsers.title' },
+  },
+  {
+    path: '/admin/accounts',
+    name: 'admin-accounts',
+    component: () => import('@/views/AdminAccountsView.vue'),
+    meta: { roles: ['admin'], title: 'adminAccounts.title' },
+  },
+  {
+    path: '/admin/branches',
+    name: 'admin-branches',
+    component: () => import('@/views/AdminBranchesView.vue'),
+    meta: { roles: ['admin'], title: 'adminBranches.title' },
+  },
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('@/views/NotFoundView.vue'),
+    meta: { title: 'notFound.title' },
+  },
+];
