@@ -97,10 +97,12 @@ export interface RequestOptions {
 export async function request<T>(method: Method, path: string, options: RequestOptions = {}): Promise<T> {
   const attempt = async () => {
     const headers: Record<string, string> = { Accept: 'application/json' };
-    if (options.body !== undefined) headers['Content-Type'] = 'application/json';
+    const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
+    if (options.body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
     if (MUTATING.has(method)) headers[CSRF_HEADER] = await csrf();
     const init: RequestInit = { headers };
-    if (options.body !== undefined) init.body = JSON.stringify(options.body);
+    if (options.body !== undefined)
+      init.body = isForm ? (options.body as FormData) : JSON.stringify(options.body);
     if (options.signal) init.signal = options.signal;
     return send(method, path, init, options.query);
   };

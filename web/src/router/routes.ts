@@ -12,6 +12,10 @@ export interface RouteNamedMap {
   'sign-in': Info<'sign-in', '/sign-in'>;
   'contractor-home': Info<'contractor-home', '/company'>;
   'staff-home': Info<'staff-home', '/desk'>;
+  tickets: Info<'tickets', '/tickets'>;
+  'ticket-new': Info<'ticket-new', '/tickets/new'>;
+  ticket: RouteRecordInfo<'ticket', '/tickets/:id', { id: string | number }, { id: string }>;
+  'desk-board': Info<'desk-board', '/desk/board'>;
   password: Info<'password', '/password'>;
   'admin-users': Info<'admin-users', '/admin/users'>;
   'admin-accounts': Info<'admin-accounts', '/admin/accounts'>;
@@ -67,6 +71,30 @@ export const routes: RouteRecordRaw[] = [
     name: 'staff-home',
     component: () => import('@/views/StaffHomeView.vue'),
     meta: { roles: STAFF_ROLES, title: 'staffHome.title' },
+  },
+  {
+    path: '/tickets',
+    name: 'tickets',
+    component: () => import('@/views/TicketListView.vue'),
+    meta: { roles: ['contractor'], title: 'tickets.list.title', touch: true },
+  },
+  {
+    path: '/tickets/new',
+    name: 'ticket-new',
+    component: () => import('@/views/TicketNewView.vue'),
+    meta: { roles: ['contractor'], title: 'tickets.new.title', touch: true },
+  },
+  {
+    path: '/tickets/:id(\\d+)',
+    name: 'ticket',
+    component: () => import('@/views/TicketView.vue'),
+    meta: { roles: ALL_ROLES, title: 'tickets.view.title', touch: true },
+  },
+  {
+    path: '/desk/board',
+    name: 'desk-board',
+    component: () => import('@/views/DeskBoardView.vue'),
+    meta: { roles: STAFF_ROLES, title: 'tickets.board.title' },
   },
   {
     path: '/password',

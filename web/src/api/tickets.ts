@@ -1,0 +1,63 @@
+import type {
+  Attachment,
+  EquipmentModel,
+  Message,
+  Ticket,
+  TicketCreate,
+  TicketStatus,
+  TicketUpdate,
+} from '@shared/schemas/tickets';
+import { http, type Query } from './http';
+
+export interface TicketListParams extends Query {
+  status?: TicketStatus | 'active';
+  assignee?: 'me' | 'none';
+  q?: string;
+  page?: number;
+  pageSize?: number;
+}
+
+/** What the create form sends (the server fills in defaults and checks it). */
+export interface TicketDraft {
+  subject: string;
+  description?: string;
+  equipmentModelId?: number;
+  modelText?: string;
+  serial?: string;
+  fuel: TicketCreate['fuel'];
+  urgency: TicketCreate['urgency'];
+}
+
+export interface MessageDraft {
+  body: string;
+  clientId: string;
+  kind?: 'message' | 'internal-note';
+  attachmentIds?: number[];
+}
+
+export const ticketsApi = {
+  /** GET /api/tickets: the tickets this person may see. */
+  list: (params: TicketListParams, signal?: AbortSignal) =>
+    http.get<{ items: Ticket[]; total: number }>('/tickets', params, signal),
+  get: (id: number, signal?: AbortSignal) =>
+    http.get<{ ticket: Ticket }>(`/tickets/${id}`, undefined, signal),
+  create: (draft: TicketDraft) => http.post<{ ticket: Ticket }>('/tickets', draft),
+  update: (id: number, change: TicketUpdate) => http.patch<{ ticket: Ticket }>(`/tickets/${id}`, change),
+  claim: (id: number) => http.post<{ ticket: Ticket }>(`/tickets/${id}/claim`),
+  /** POST /api/tickets/:id/attachments: photos, sent as multipart field `files`. */
+  upload: (id: number, files: readonly File[]) => {
+    const form = new FormData();
+    for (const file of files) form.append('files', file);
+    return http.post<{ attachments: Attachment[] }>(`/tickets/${id}/attachments`, form);
+  },
+  messages: (id: number, after?: number, signal?: AbortSignal) =>
+    http.get<{ items: Message[] }>(`/tickets/${id}/messages`, { after }, signal),
+  sendMessage: (id: number, draft: MessageDraft) =>
+    http.post<{ message: Message }>(`/tickets/${id}/messages`, draft),
+};
+
+export const equipmentApi = {
+  /** GET /api/equipment: catalogue models matching the search. */
+  search: (q: string, signal?: AbortSignal) =>
+    http.get<{ items: EquipmentModel[] }>('/equipment', { q }, signal),
+};
