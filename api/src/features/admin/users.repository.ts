@@ -1,5 +1,6 @@
 import { and, count, desc, eq, ilike, or, sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
+import { isoTime } from '../../db/sql';
 import { contractorAccounts, staffBranches, users } from '../../db/schema/index';
 import type { Role, UserListQuery } from '../../../../shared/src/index';
 import { likePattern, offsetOf } from '../../lib/pagination';
@@ -17,10 +18,8 @@ const columns = {
     number[]
   >`coalesce((select array_agg(${staffBranches.branchId} order by ${staffBranches.branchId})
     from ${staffBranches} where ${staffBranches.userId} = ${users.id}), '{}')`,
-  lastSignInAt: sql<
-    string | null
-  >`to_char(${users.lastSignInAt} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`,
-  createdAt: sql<string>`to_char(${users.createdAt} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`,
+  lastSignInAt: isoTime(users.lastSignInAt) as SQL<string | null>,
+  createdAt: isoTime(users.createdAt),
 };
 
 const base = (db: Executor) =>

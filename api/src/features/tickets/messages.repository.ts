@@ -1,10 +1,8 @@
 import { and, asc, eq, gt, inArray, isNull, lte, ne, sql } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
+import { isoTime } from '../../db/sql';
 import { attachments, ticketMessages, users } from '../../db/schema/index';
 import type { Attachment, Message } from '../../../../shared/src/index';
-
-const iso = (col: unknown) =>
-  sql<string>`to_char((${col}) at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
 
 export const attachmentColumns = {
   id: attachments.id,
@@ -16,7 +14,7 @@ export const attachmentColumns = {
   width: attachments.width,
   height: attachments.height,
   thumbnailKey: attachments.thumbnailKey,
-  createdAt: iso(attachments.createdAt),
+  createdAt: isoTime(attachments.createdAt),
 };
 
 export function toAttachment(
@@ -40,9 +38,9 @@ const messageColumns = {
   authorId: users.id,
   authorName: users.name,
   authorRole: users.role,
-  createdAt: iso(ticketMessages.createdAt),
-  deliveredAt: iso(ticketMessages.deliveredAt),
-  readAt: iso(ticketMessages.readAt),
+  createdAt: isoTime(ticketMessages.createdAt),
+  deliveredAt: isoTime(ticketMessages.deliveredAt),
+  readAt: isoTime(ticketMessages.readAt),
 };
 
 async function withAttachments(

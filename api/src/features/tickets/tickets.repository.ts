@@ -1,6 +1,7 @@
 import { and, count, desc, eq, ilike, inArray, isNull, or, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { Executor } from '../../db/client';
+import { isoTime } from '../../db/sql';
 import {
   branches,
   contractorAccounts,
@@ -15,8 +16,6 @@ import { likePattern, offsetOf } from '../../lib/pagination';
 
 const opener = alias(users, 'opener');
 const assignee = alias(users, 'assignee');
-const iso = (col: SQL | typeof tickets.createdAt) =>
-  sql<string>`to_char((${col}) at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
 
 const columns = {
   id: tickets.id,
@@ -40,15 +39,15 @@ const columns = {
   status: tickets.status,
   assigneeId: assignee.id,
   assigneeName: assignee.name,
-  firstResponseAt: iso(sql`${tickets.firstResponseAt}`),
-  firstResponseDueAt: iso(
+  firstResponseAt: isoTime(sql`${tickets.firstResponseAt}`),
+  firstResponseDueAt: isoTime(
     sql`${tickets.createdAt} + make_interval(mins => coalesce(${firstResponseTargets.minutes}, 60))`,
   ),
-  resolvedAt: iso(sql`${tickets.resolvedAt}`),
+  resolvedAt: isoTime(sql`${tickets.resolvedAt}`),
   resolutionSummary: tickets.resolutionSummary,
-  createdAt: iso(tickets.createdAt),
-  updatedAt: iso(sql`${tickets.updatedAt}`),
-  lastMessageAt: iso(sql`${tickets.lastMessageAt}`),
+  createdAt: isoTime(tickets.createdAt),
+  updatedAt: isoTime(sql`${tickets.updatedAt}`),
+  lastMessageAt: isoTime(sql`${tickets.lastMessageAt}`),
   messageCount: sql<number>`(select count(*)::int from ticket_messages m where m.ticket_id = ${tickets.id} and m.kind = 'message')`,
 };
 

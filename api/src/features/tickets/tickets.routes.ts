@@ -62,11 +62,9 @@ export function ticketsRouter(ctx: AppContext): Router {
   /** POST /api/tickets/:id/messages — whoever may see it; the same clientId twice stores one message. */
   router.post('/:id/messages', byId, validate('body', messageCreateSchema), async (req, res) => {
     authorize(req.user, 'home.view');
-    res
-      .status(201)
-      .json({
-        message: await postMessage(ctx, req.user, ticketId(res), parsed(res, 'body', messageCreateSchema)),
-      });
+    res.status(201).json({
+      message: await postMessage(ctx, req.user, ticketId(res), parsed(res, 'body', messageCreateSchema)),
+    });
   });
 
   router.use('/:id/attachments', ticketAttachmentsRouter(ctx));
