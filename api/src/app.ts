@@ -19,8 +19,8 @@ import { healthRouter } from './features/health/index';
 import { homeRouter } from './features/home/index';
 import { ticketsRouter } from './features/tickets/index';
 import { attachmentsRouter } from './features/attachments/index';
-import { equipmentRouter } from './features/equipment/equipment.routes';
-import { snippetsRouter } from './features/snippets/snippets.routes';
+import { equipmentRouter } from './features/equipment/index';
+import { snippetsRouter } from './features/snippets/index';
 
 export interface CreatedApp {
   app: Express;

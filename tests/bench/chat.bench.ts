@@ -19,8 +19,9 @@ import { Server } from 'socket.io';
 import { io as connect, type Socket } from 'socket.io-client';
 import type { ClientToServerEvents, ServerToClientEvents } from '../../shared/src/events';
 import type { RunningServer } from '../../api/src/server';
-import { closeTestDb, makeAccount, makeUser } from '../support/fixtures';
-import { signedInClient, startTestServer } from '../support/server';
+import { closeTestDb } from '../support/fixtures';
+import { startTestServer } from '../support/server';
+import { ticketWorld } from '../support/tickets';
 
 type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 
@@ -217,19 +218,11 @@ async function runOurs(server: RunningServer, n: number, sockets: Socket[]): Pro
   };
 
   const setup = forEachLimited(n, SETUP_CONCURRENCY, async (i) => {
-    const account = await makeAccount();
-    const contractor = await makeUser({ accountId: account.id });
-    const tech = await makeUser({ role: 'tech', branchIds: [account.homeBranchId] });
-    const contractorClient = await signedInClient(server, contractor);
-    const techClient = await signedInClient(server, tech);
-    const res = await contractorClient.post('/api/tickets', {
+    const { contractorClient, techClient, ticket } = await ticketWorld(server, {
       subject: 'Bench ticket',
-      fuel: 'natural-gas',
       urgency: 'question',
     });
-    if (res.status !== 201)
-      throw new Error(`ticket create failed: ${res.status} ${JSON.stringify(res.body)}`);
-    const ticketId: number = res.body.ticket.id;
+    const ticketId = ticket.id;
     pairs[i] = [
       await socketFor(contractorClient.cookieHeader(), ticketId),
       await socketFor(techClient.cookieHeader(), ticketId),

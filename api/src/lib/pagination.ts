@@ -4,16 +4,3 @@ export const offsetOf = (q: Pick<ListQuery, 'page' | 'pageSize'>) => (q.page - 1
 
 /** `%text%` for ILIKE with the user's own % and _ taken literally. */
 export const likePattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-
-/** Postgres unique violation (23505) on the named constraint or index. */
-export function isUniqueViolation(err: unknown, constraint?: string): boolean {
-  const e = (err as { cause?: unknown })?.cause ?? err;
-  const pgErr = e as { code?: string; constraint?: string };
-  return pgErr?.code === '23505' && (!constraint || pgErr.constraint === constraint);
-}
-
-/** Postgres foreign-key violation (23503). */
-export function isForeignKeyViolation(err: unknown): boolean {
-  const e = ((err as { cause?: unknown })?.cause ?? err) as { code?: string };
-  return e?.code === '23503';
-}

@@ -100,3 +100,9 @@ export const ROLE_LABEL: Record<Role, string> = {
   specialist: 'Product specialist',
   admin: 'Admin',
 };
+
+/** The signed-in user of a request, or the 401 that every route gives to anonymous callers. */
+export function signedIn(req: { user?: SessionUser }): SessionUser {
+  if (!req.user) throw AppError.unauthenticated();
+  return req.user;
+}

@@ -236,16 +236,14 @@ export async function seedTickets(db: Db, storage: FileStorage): Promise<number>
           sha256: createHash('sha256').update(photo).digest('hex'),
         });
       }
-      await tx
-        .insert(ticketEvents)
-        .values({
-          ticketId,
-          actorId: opener.id,
-          field: 'status',
-          fromValue: null,
-          toValue: 'new',
-          createdAt: opened,
-        });
+      await tx.insert(ticketEvents).values({
+        ticketId,
+        actorId: opener.id,
+        field: 'status',
+        fromValue: null,
+        toValue: 'new',
+        createdAt: opened,
+      });
       if (answered) {
         await tx.insert(ticketMessages).values([
           {

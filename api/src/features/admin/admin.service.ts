@@ -11,7 +11,7 @@ import type {
 } from '../../../../shared/src/index';
 import { audit } from '../../lib/audit';
 import { AppError } from '../../lib/errors';
-import { isForeignKeyViolation, isUniqueViolation } from '../../lib/pagination';
+import { isForeignKeyViolation, isUniqueViolation } from '../../lib/pg-errors';
 import { hashPassword } from '../../lib/passwords';
 import { deleteSessionsOf } from '../auth/auth.repository';
 import * as accounts from './accounts.repository';

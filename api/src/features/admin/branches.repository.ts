@@ -4,7 +4,8 @@ import { branches } from '../../db/schema/index';
 import type { BranchCreate, BranchUpdate, ListQuery } from '../../../../shared/src/index';
 import { likePattern, offsetOf } from '../../lib/pagination';
 
-const columns = {
+/** A branch as the API shows it, wherever branches are read. */
+export const branchColumns = {
   id: branches.id,
   code: branches.code,
   name: branches.name,
@@ -18,7 +19,7 @@ export async function listBranches(db: Executor, q: ListQuery) {
     : undefined;
   const [items, [total]] = await Promise.all([
     db
-      .select(columns)
+      .select(branchColumns)
       .from(branches)
       .where(where)
       .orderBy(asc(branches.name))
@@ -30,7 +31,7 @@ export async function listBranches(db: Executor, q: ListQuery) {
 }
 
 export async function findBranch(db: Executor, id: number) {
-  const [row] = await db.select(columns).from(branches).where(eq(branches.id, id));
+  const [row] = await db.select(branchColumns).from(branches).where(eq(branches.id, id));
   return row;
 }
 
@@ -38,11 +39,11 @@ export async function insertBranch(db: Executor, input: BranchCreate) {
   const [row] = await db
     .insert(branches)
     .values({ code: input.code, name: input.name, deskEmail: input.deskEmail ?? null })
-    .returning(columns);
+    .returning(branchColumns);
   return row!;
 }
 
 export async function updateBranch(db: Executor, id: number, input: BranchUpdate) {
-  const [row] = await db.update(branches).set(input).where(eq(branches.id, id)).returning(columns);
+  const [row] = await db.update(branches).set(input).where(eq(branches.id, id)).returning(branchColumns);
   return row;
 }

@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm';
+import { asc, eq, inArray } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
 import { attachments, ticketMessages } from '../../db/schema/index';
 import { attachmentColumns, toAttachment } from '../tickets/messages.repository';
@@ -9,10 +9,12 @@ export async function insertAttachments(db: Executor, rows: (typeof attachments.
 }
 
 export async function listByIds(db: Executor, ids: number[]) {
-  const rows = await Promise.all(
-    ids.map((id) => db.select(attachmentColumns).from(attachments).where(eq(attachments.id, id))),
-  );
-  return rows.flat().map(toAttachment);
+  const rows = await db
+    .select(attachmentColumns)
+    .from(attachments)
+    .where(inArray(attachments.id, ids))
+    .orderBy(asc(attachments.id));
+  return rows.map(toAttachment);
 }
 
 /** A stored file with what decides who may read it: its ticket, uploader and the message kind. */

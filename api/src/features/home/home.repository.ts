@@ -1,14 +1,7 @@
 import { asc, eq, inArray } from 'drizzle-orm';
 import type { Executor } from '../../db/client';
 import { branches, contractorAccounts, users } from '../../db/schema/index';
-
-const branchColumns = {
-  id: branches.id,
-  code: branches.code,
-  name: branches.name,
-  deskEmail: branches.deskEmail,
-  active: branches.active,
-};
+import { branchColumns } from '../admin/branches.repository';
 
 export async function findAccountHome(db: Executor, accountId: number) {
   const [row] = await db

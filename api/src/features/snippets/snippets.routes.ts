@@ -1,73 +1,27 @@
 import { Router } from 'express';
-import { and, asc, eq, isNull, or } from 'drizzle-orm';
 import type { AppContext } from '../../context';
-import { replySnippets } from '../../db/schema/index';
 import { idParamsSchema, snippetCreateSchema, snippetUpdateSchema } from '../../../../shared/src/index';
-import { AppError } from '../../lib/errors';
-import { authorize } from '../../lib/policies';
+import { signedIn } from '../../lib/policies';
 import { parsed, validate } from '../../lib/validate';
-
-const columns = {
-  id: replySnippets.id,
-  title: replySnippets.title,
-  body: replySnippets.body,
-  ownerId: replySnippets.ownerId,
-  createdById: replySnippets.createdById,
-  updatedAt: replySnippets.updatedAt,
-};
-type Row = {
-  id: number;
-  title: string;
-  body: string;
-  ownerId: number | null;
-  createdById: number | null;
-  updatedAt: Date;
-};
-const toSnippet = ({ createdById: _c, updatedAt, ...r }: Row) => ({
-  ...r,
-  shared: r.ownerId === null,
-  updatedAt: updatedAt.toISOString(),
-});
+import * as snippets from './snippets.service';
 
 export function snippetsRouter(ctx: AppContext): Router {
   const router = Router();
-  const mineOrShared = (userId: number) =>
-    or(isNull(replySnippets.ownerId), eq(replySnippets.ownerId, userId));
-
-  async function load(userId: number, id: number) {
-    const [row] = await ctx.db
-      .select(columns)
-      .from(replySnippets)
-      .where(and(eq(replySnippets.id, id), mineOrShared(userId)));
-    if (!row) throw AppError.notFound('Snippet');
-    return row;
-  }
+  const id = (res: { locals: Record<string, unknown> }) => parsed(res, 'params', idParamsSchema).id;
 
   /** GET /api/snippets — staff: my snippets and the desk's shared ones. */
   router.get('/', async (req, res) => {
-    authorize(req.user, 'snippet.use');
-    const rows = await ctx.db
-      .select(columns)
-      .from(replySnippets)
-      .where(mineOrShared(req.user.id))
-      .orderBy(asc(replySnippets.title));
-    res.json({ items: rows.map(toSnippet) });
+    res.json({ items: await snippets.listSnippets(ctx, signedIn(req)) });
   });
 
   /** POST /api/snippets — staff: a personal snippet, or a shared one. */
   router.post('/', validate('body', snippetCreateSchema), async (req, res) => {
-    authorize(req.user, 'snippet.use');
-    const input = parsed(res, 'body', snippetCreateSchema);
-    const [row] = await ctx.db
-      .insert(replySnippets)
-      .values({
-        title: input.title,
-        body: input.body,
-        ownerId: input.shared ? null : req.user.id,
-        createdById: req.user.id,
-      })
-      .returning(columns);
-    res.status(201).json({ snippet: toSnippet(row!) });
+    const snippet = await snippets.createSnippet(
+      ctx,
+      signedIn(req),
+      parsed(res, 'body', snippetCreateSchema),
+    );
+    res.status(201).json({ snippet });
   });
 
   /** PATCH /api/snippets/:id — its owner; shared ones: their author, specialists and admins. */
@@ -76,29 +30,19 @@ export function snippetsRouter(ctx: AppContext): Router {
     validate('params', idParamsSchema),
     validate('body', snippetUpdateSchema),
     async (req, res) => {
-      authorize(req.user, 'snippet.use');
-      const row = await load(req.user.id, parsed(res, 'params', idParamsSchema).id);
-      authorize(req.user, 'snippet.edit', row);
-      const { shared, ...rest } = parsed(res, 'body', snippetUpdateSchema);
-      const [updated] = await ctx.db
-        .update(replySnippets)
-        .set({
-          ...rest,
-          ...(shared !== undefined ? { ownerId: shared ? null : req.user.id } : {}),
-          updatedAt: new Date(),
-        })
-        .where(eq(replySnippets.id, row.id))
-        .returning(columns);
-      res.json({ snippet: toSnippet(updated!) });
+      const snippet = await snippets.updateSnippet(
+        ctx,
+        signedIn(req),
+        id(res),
+        parsed(res, 'body', snippetUpdateSchema),
+      );
+      res.json({ snippet });
     },
   );
 
   /** DELETE /api/snippets/:id — as PATCH. */
   router.delete('/:id', validate('params', idParamsSchema), async (req, res) => {
-    authorize(req.user, 'snippet.use');
-    const row = await load(req.user.id, parsed(res, 'params', idParamsSchema).id);
-    authorize(req.user, 'snippet.edit', row);
-    await ctx.db.delete(replySnippets).where(eq(replySnippets.id, row.id));
+    await snippets.deleteSnippet(ctx, signedIn(req), id(res));
     res.status(204).end();
   });
 

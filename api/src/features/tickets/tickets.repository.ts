@@ -218,14 +218,6 @@ export async function findHomeBranchId(db: Executor, accountId: number): Promise
   return row?.id;
 }
 
-export async function equipmentExists(db: Executor, id: number): Promise<boolean> {
-  const [row] = await db
-    .select({ id: equipmentModels.id })
-    .from(equipmentModels)
-    .where(eq(equipmentModels.id, id));
-  return !!row;
-}
-
 export async function isStaffMember(db: Executor, userId: number): Promise<boolean> {
   const [row] = await db
     .select({ id: users.id })

@@ -10,6 +10,7 @@ import type {
 import { AppError } from '../../lib/errors';
 import { authorize, can } from '../../lib/policies';
 import * as repo from './tickets.repository';
+import { equipmentExists } from '../equipment/index';
 import { rooms } from './rooms';
 
 const REOPEN_DAYS = 14;
@@ -34,7 +35,7 @@ export function announce(ctx: AppContext, ticket: Ticket) {
 export async function createTicket(ctx: AppContext, user: SessionUser, input: TicketCreate): Promise<Ticket> {
   authorize(user, 'ticket.create', { accountId: user.accountId });
   const accountId = user.accountId!;
-  if (input.equipmentModelId && !(await repo.equipmentExists(ctx.db, input.equipmentModelId))) {
+  if (input.equipmentModelId && !(await equipmentExists(ctx.db, input.equipmentModelId))) {
     throw AppError.validation({ equipmentModelId: 'This model is not in the catalogue' });
   }
   const branchId = await repo.findHomeBranchId(ctx.db, accountId);

@@ -7,7 +7,6 @@ import type {
   ServerToClientEvents,
   SocketData,
 } from '../../../../shared/src/events';
-import { clientIdSchema, MAX_MESSAGE_LENGTH } from '../../../../shared/src/index';
 import { messageCreateSchema } from '../../../../shared/src/index';
 import { AppError, handleError } from '../../lib/errors';
 import { can } from '../../lib/policies';
@@ -21,16 +20,8 @@ type AppSocket = Socket<ClientToServerEvents, ServerToClientEvents, Record<strin
 
 const ticketRef = z.object({ ticketId: z.number().int().positive() });
 const readSchema = ticketRef.extend({ messageId: z.number().int().positive() });
-const sendSchema = z.object({
-  ticketId: z.number().int().positive(),
-  clientId: clientIdSchema,
-  body: z
-    .string()
-    .max(MAX_MESSAGE_LENGTH, `Messages are at most ${MAX_MESSAGE_LENGTH} characters`)
-    .default(''),
-  kind: z.enum(['message', 'internal-note']).default('message'),
-  attachmentIds: z.array(z.number().int().positive()).max(10).default([]),
-});
+// The same body rules as the REST route, plus which ticket.
+const sendSchema = z.intersection(ticketRef, messageCreateSchema);
 
 const SEND_LIMIT = 20;
 const SEND_WINDOW_MS = 10_000;
@@ -44,19 +35,13 @@ function handler<T, R extends object>(
 ): (payload: unknown, ack?: (res: Ack<R>) => void) => void {
   return (payload, ack) => {
     const reply = typeof ack === 'function' ? ack : () => {};
-    const parsed = schema.safeParse(payload);
-    if (!parsed.success) {
-      const fields = Object.fromEntries(parsed.error.issues.map((i) => [i.path.join('.') || '_', i.message]));
-      reply({
-        ok: false,
-        error: { code: 'validation_failed', message: 'Some fields need attention', fields },
-      });
-      return;
-    }
-    run(parsed.data).then(
-      (result) => reply({ ok: true, ...result } as Ack<R>),
-      (err) => reply({ ok: false, error: handleError(err, ctx.logger).body.error }),
-    );
+    // A payload that fails the schema throws a ZodError, which handleError turns into field errors.
+    Promise.resolve(payload)
+      .then((p) => run(schema.parse(p)))
+      .then(
+        (result) => reply({ ok: true, ...result } as Ack<R>),
+        (err) => reply({ ok: false, error: handleError(err, ctx.logger).body.error }),
+      );
   };
 }
 
@@ -95,8 +80,8 @@ export function registerTicketHandlers(ctx: AppContext, io: Io, socket: AppSocke
         throw new AppError('rate_limited', `Slow down: at most ${SEND_LIMIT} messages in 10 seconds`, 429);
       }
       sent.push(now);
-      const input = messageCreateSchema.parse(payload);
-      const message = await postMessage(ctx, user(), payload.ticketId, input);
+      const { ticketId, ...input } = payload;
+      const message = await postMessage(ctx, user(), ticketId, input);
       return { message };
     }),
   );

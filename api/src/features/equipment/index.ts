@@ -1,0 +1,2 @@
+export { equipmentRouter } from './equipment.routes';
+export { equipmentExists } from './equipment.repository';

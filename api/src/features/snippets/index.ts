@@ -1,0 +1,1 @@
+export { snippetsRouter } from './snippets.routes';
