@@ -1,4 +1,3 @@
-import { useI18n } from 'vue-i18n';
 import {
   accountCreateSchema,
   accountUpdateSchema,
@@ -6,7 +5,8 @@ import {
   type AccountCreate,
   type AccountUpdate,
 } from '@shared/schemas/admin';
-import { useEntityForm } from './useEntityForm';
+import { ACCOUNT_TEXTS } from './adminTexts';
+import { useEntityForm, type SaveEntity } from './useEntityForm';
 
 interface AccountForm {
   company: string;
@@ -16,27 +16,14 @@ interface AccountForm {
 }
 
 /** The new/edit contractor account form. */
-export function useAccountForm(
-  save: (id: number | null, body: AccountCreate | AccountUpdate) => Promise<Account>,
-) {
-  const { t } = useI18n();
+export function useAccountForm(save: SaveEntity<Account, AccountCreate, AccountUpdate>) {
   return useEntityForm<Account, AccountForm, AccountCreate, AccountUpdate>({
+    texts: ACCOUNT_TEXTS,
     fields: ['company', 'accountNumber', 'homeBranchId', 'active'],
     blank: () => ({ company: '', accountNumber: '', homeBranchId: null, active: true }),
-    fromEntity: ({ company, accountNumber, homeBranchId, active }) => ({
-      company,
-      accountNumber,
-      homeBranchId,
-      active,
-    }),
     toBody: (form) => ({ ...form, homeBranchId: form.homeBranchId ?? undefined }),
     createSchema: accountCreateSchema,
     updateSchema: accountUpdateSchema,
     save,
-    confirmDeactivate: (account) => ({
-      title: t('adminAccounts.deactivateTitle'),
-      message: t('adminAccounts.deactivateMessage', { company: account.company }),
-      confirm: t('adminAccounts.deactivateConfirm'),
-    }),
   });
 }

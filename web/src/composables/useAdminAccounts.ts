@@ -1,21 +1,14 @@
-import { useQueryClient } from '@tanstack/vue-query';
 import type { AccountCreate, AccountUpdate } from '@shared/schemas/admin';
 import { adminApi } from '@/api/admin';
 import { useAdminList } from './useAdminList';
+import { useAdminSave } from './useAdminSave';
 
 /** The contractor accounts table and saving an account. */
 export function useAdminAccounts() {
-  const list = useAdminList('accounts', (params, signal) => adminApi.listAccounts(params, signal));
-  const queryClient = useQueryClient();
-
-  async function save(id: number | null, body: AccountCreate | AccountUpdate) {
-    const { account } =
-      id === null
-        ? await adminApi.createAccount(body as AccountCreate)
-        : await adminApi.updateAccount(id, body as AccountUpdate);
-    await queryClient.invalidateQueries({ queryKey: ['admin'] });
-    return account;
-  }
-
+  const list = useAdminList('accounts', adminApi.listAccounts);
+  const save = useAdminSave(
+    async (body: AccountCreate) => (await adminApi.createAccount(body)).account,
+    async (id, body: AccountUpdate) => (await adminApi.updateAccount(id, body)).account,
+  );
   return { ...list, save };
 }

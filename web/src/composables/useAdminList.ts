@@ -6,9 +6,22 @@ import { useDebouncedRef } from './useDebouncedRef';
 
 export const PAGE_SIZES = [10, 20, 50, 100] as const;
 
+/** An admin list as a component reads it: the result of `useAdminList` wrapped in `reactive`. */
+export interface AdminListState<T> {
+  items: T[];
+  total: number;
+  loading: boolean;
+  firstLoad: boolean;
+  error: Error | null;
+  filtered: boolean;
+  retry: () => unknown;
+  clearFilters: () => void;
+}
+
 /**
  * One admin table's data: a debounced search, a page, optional filters, and the page of rows.
- * The previous page stays on screen while the next one loads.
+ * The previous page stays on screen while the next one loads. A caller with filters of its own
+ * clears them beside `clearFilters`.
  */
 export function useAdminList<T, F extends object = Record<never, never>>(
   key: string,
@@ -29,6 +42,14 @@ export function useAdminList<T, F extends object = Record<never, never>>(
     page.value = 1;
   });
 
+  /** A search or a filter is on, so an empty page means "nothing matches" rather than "nothing yet". */
+  const filtered = computed(() => q.value.trim() !== '' || Object.keys(toValue(filters)).length > 0);
+
+  function clearFilters(): void {
+    search.value = '';
+    q.value = '';
+  }
+
   const query = useQuery({
     queryKey: computed(() => ['admin', key, params.value]),
     queryFn: ({ signal }) => fetchPage(params.value, signal),
@@ -45,6 +66,8 @@ export function useAdminList<T, F extends object = Record<never, never>>(
     loading: computed(() => query.isFetching.value),
     firstLoad: computed(() => query.isPending.value),
     error: computed(() => query.error.value),
+    filtered,
     retry: () => query.refetch(),
+    clearFilters,
   };
 }

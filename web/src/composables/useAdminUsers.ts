@@ -1,25 +1,24 @@
 import { computed, ref } from 'vue';
-import { useQueryClient } from '@tanstack/vue-query';
 import type { UserCreate, UserUpdate } from '@shared/schemas/admin';
 import type { Role } from '@shared/schemas/auth';
 import { adminApi } from '@/api/admin';
 import { useAdminList } from './useAdminList';
+import { useAdminSave } from './useAdminSave';
 
 /** The users table (search, role filter, pages) and saving a user. */
 export function useAdminUsers() {
   const role = ref<Role | ''>('');
   const filters = computed(() => (role.value ? { role: role.value } : {}));
-  const list = useAdminList('users', (params, signal) => adminApi.listUsers(params, signal), filters);
-  const queryClient = useQueryClient();
+  const list = useAdminList('users', adminApi.listUsers, filters);
+  const save = useAdminSave(
+    async (body: UserCreate) => (await adminApi.createUser(body)).user,
+    async (id, body: UserUpdate) => (await adminApi.updateUser(id, body)).user,
+  );
 
-  async function save(id: number | null, body: UserCreate | UserUpdate) {
-    const { user } =
-      id === null
-        ? await adminApi.createUser(body as UserCreate)
-        : await adminApi.updateUser(id, body as UserUpdate);
-    await queryClient.invalidateQueries({ queryKey: ['admin'] });
-    return user;
+  function clearFilters(): void {
+    list.clearFilters();
+    role.value = '';
   }
 
-  return { ...list, role, save };
+  return { ...list, role, clearFilters, save };
 }

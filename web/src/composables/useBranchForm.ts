@@ -1,4 +1,3 @@
-import { useI18n } from 'vue-i18n';
 import {
   branchCreateSchema,
   branchUpdateSchema,
@@ -6,7 +5,8 @@ import {
   type BranchCreate,
   type BranchUpdate,
 } from '@shared/schemas/admin';
-import { useEntityForm } from './useEntityForm';
+import { BRANCH_TEXTS } from './adminTexts';
+import { useEntityForm, type SaveEntity } from './useEntityForm';
 
 interface BranchForm {
   code: string;
@@ -16,11 +16,9 @@ interface BranchForm {
 }
 
 /** The new/edit branch form; an empty desk e-mail means "none". */
-export function useBranchForm(
-  save: (id: number | null, body: BranchCreate | BranchUpdate) => Promise<Branch>,
-) {
-  const { t } = useI18n();
+export function useBranchForm(save: SaveEntity<Branch, BranchCreate, BranchUpdate>) {
   return useEntityForm<Branch, BranchForm, BranchCreate, BranchUpdate>({
+    texts: BRANCH_TEXTS,
     fields: ['code', 'name', 'deskEmail', 'active'],
     blank: () => ({ code: '', name: '', deskEmail: '', active: true }),
     fromEntity: ({ code, name, deskEmail, active }) => ({ code, name, deskEmail: deskEmail ?? '', active }),
@@ -28,10 +26,5 @@ export function useBranchForm(
     createSchema: branchCreateSchema,
     updateSchema: branchUpdateSchema,
     save,
-    confirmDeactivate: (branch) => ({
-      title: t('adminBranches.deactivateTitle'),
-      message: t('adminBranches.deactivateMessage', { name: branch.name }),
-      confirm: t('adminBranches.deactivateConfirm'),
-    }),
   });
 }

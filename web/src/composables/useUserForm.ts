@@ -9,9 +9,10 @@ import {
 } from '@shared/schemas/admin';
 import type { Role } from '@shared/schemas/auth';
 import { useConfirm } from './useConfirm';
+import type { SaveEntity } from './useEntityForm';
 import { useFormErrors } from './useFormErrors';
 
-type Save = (id: number | null, body: UserCreate | UserUpdate) => Promise<AdminUser>;
+type Save = SaveEntity<AdminUser, UserCreate, UserUpdate>;
 
 const FIELDS = [
   'name',
