@@ -1,29 +1,30 @@
 // Live chat under load: N contractor–tech pairs, each with its own ticket, exchange M messages per
-// side over socket.io against the real API and the real database, all pairs at once, each pair
-// closed-loop (next message only after the previous ack). Measured per message:
+// side over socket.io against the real API and the real database, all pairs at once. By default
+// each pair sends one message a second, the sides taking turns (a fast conversation); --pace 0
+// sends each message as soon as the previous one is acknowledged, which measures saturation.
+// Measured per message:
 //   ack       = send → the sender's ack (the server answers after the row is committed)
 //   delivered = send → the other side's `message:new` with the same clientId
-// Baseline in the same run: a bare socket.io relay (no database, no auth, no checks) with the same
-// N, M and measurements. Peak RSS is sampled every 50 ms during the exchange; the server runs in
-// this process, so the figure includes the client sockets too.
+// The client sockets run in a child process (chat-clients.ts), so the server's peak RSS, sampled
+// every 50 ms during the exchange, is the server's own. Baseline in the same run: a bare socket.io
+// relay (no database, no auth, no checks) with the same N, M, pace and measurements.
 // Targets at N=500: ack p95 ≤ 30 ms, delivered p99 ≤ 100 ms, peak RSS ≤ 300 MB.
-//   DATABASE_URL=postgres://… npm run bench:chat [-- --sizes 50,200 --messages 10]
+//   DATABASE_URL=postgres://… npm run bench:chat [-- --sizes 50,200 --messages 10 --pace 1000]
 // Each size is bounded to 120 s (setup and exchange each); a size that runs over is reported as
 // aborted and the run exits 1. Otherwise it exits 0, whether targets are met or missed.
-import { randomUUID } from 'node:crypto';
+
+import { fork } from 'node:child_process';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { performance } from 'node:perf_hooks';
+import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { Server } from 'socket.io';
-import { io as connect, type Socket } from 'socket.io-client';
-import type { ClientToServerEvents, ServerToClientEvents } from '../../shared/src/events';
 import type { RunningServer } from '../../api/src/server';
 import { closeTestDb } from '../support/fixtures';
 import { startTestServer } from '../support/server';
 import { ticketWorld } from '../support/tickets';
-
-type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
+import type { ClientJob, ClientReport } from './chat-clients';
 
 const SIZE_LIMIT_MS = 120_000;
 const SETUP_CONCURRENCY = 8;
@@ -33,6 +34,9 @@ const { values: args } = parseArgs({
   options: {
     sizes: { type: 'string', default: '50,200,500' },
     messages: { type: 'string', default: '10' },
+    // Milliseconds between one pair's messages (a fast chat, sides taking turns); 0 sends each
+    // message as soon as the previous one is acknowledged, which measures saturation instead.
+    pace: { type: 'string', default: '1000' },
   },
 });
 const SIZES = args.sizes
@@ -40,6 +44,7 @@ const SIZES = args.sizes
   .map((s) => Number(s.trim()))
   .filter((n) => Number.isInteger(n) && n > 0);
 const M = Number(args.messages);
+const PACE_MS = Number(args.pace);
 if (SIZES.length === 0 || !Number.isInteger(M) || M < 1) {
   console.error('Use --sizes as a comma list of positive integers and --messages as a positive integer.');
   process.exit(1);
@@ -116,190 +121,89 @@ interface PhaseResult {
   seconds: number;
 }
 
-/** One side of a pair, as the exchange loop sees it, for either server. */
-interface Peer {
-  send(clientId: string, body: string): Promise<void>;
-  /** Registers the callback called with the clientId of each message this peer receives. */
-  onReceive(cb: (clientId: string) => void): void;
-}
-
-/** Every pair at once; within a pair, the next message goes only after the previous ack. */
-async function exchange(pairs: [Peer, Peer][], deadline: number, label: string): Promise<PhaseResult> {
-  const ackMs: number[] = [];
-  const deliveredMs: number[] = [];
-  const expected = pairs.length * 2 * M;
-  // clientId → send time and the peer that must receive it.
-  const inFlight = new Map<string, { sentAt: number; to: Peer }>();
-  let allDelivered!: () => void;
-  const deliveredAll = new Promise<void>((resolve) => (allDelivered = resolve));
-  for (const pair of pairs) {
-    for (const peer of pair) {
-      peer.onReceive((clientId) => {
-        const now = performance.now();
-        const sent = inFlight.get(clientId);
-        if (!sent || sent.to !== peer) return;
-        inFlight.delete(clientId);
-        deliveredMs.push(now - sent.sentAt);
-        if (deliveredMs.length === expected) allDelivered();
-      });
-    }
-  }
-
+/** Runs the client side in a child process while this (server) process samples its own RSS. */
+async function exchange(
+  job: Omit<ClientJob, 'messagesPerSide' | 'paceMs' | 'limitMs'>,
+  label: string,
+): Promise<PhaseResult> {
+  const child = fork(fileURLToPath(new URL('./chat-clients.ts', import.meta.url)), [], {
+    execArgv: ['--import', 'tsx'],
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+  });
   let peakRss = process.memoryUsage().rss;
-  const sampler = setInterval(() => {
-    peakRss = Math.max(peakRss, process.memoryUsage().rss);
-  }, 50);
-  const started = performance.now();
+  const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 50);
   try {
-    const loops = pairs.map(async ([contractor, tech]) => {
-      for (let i = 0; i < 2 * M; i++) {
-        const [from, to] = i % 2 === 0 ? [contractor, tech] : [tech, contractor];
-        const clientId = randomUUID().replace(/-/g, '');
-        const sentAt = performance.now();
-        inFlight.set(clientId, { sentAt, to });
-        await from.send(clientId, `Bench message ${i + 1}: inlet 7.0 in. w.c., manifold 3.5 in. w.c.`);
-        ackMs.push(performance.now() - sentAt);
-      }
+    const report = await new Promise<ClientReport>((resolve, reject) => {
+      child.once('message', (m) => resolve(m as ClientReport));
+      child.once('exit', (code) => reject(new SizeAborted(`${label}: the client process exited (${code})`)));
+      child.send({ ...job, messagesPerSide: M, paceMs: PACE_MS, limitMs: SIZE_LIMIT_MS } satisfies ClientJob);
     });
-    await beforeDeadline(Promise.all(loops), deadline, `${label}: the exchange`);
-    await beforeDeadline(deliveredAll, deadline, `${label}: delivery of every message`);
+    if (!report.ok) throw new SizeAborted(`${label}: ${report.error}`);
+    return {
+      ack: summarise(report.ackMs),
+      delivered: summarise(report.deliveredMs),
+      peakRssMb: Math.max(peakRss, process.memoryUsage().rss) / 1024 / 1024,
+      seconds: report.seconds,
+    };
   } finally {
     clearInterval(sampler);
-    peakRss = Math.max(peakRss, process.memoryUsage().rss);
+    child.kill();
   }
-  return {
-    ack: summarise(ackMs),
-    delivered: summarise(deliveredMs),
-    peakRssMb: peakRss / 1024 / 1024,
-    seconds: (performance.now() - started) / 1000,
-  };
-}
-
-async function connected<S extends Socket>(socket: S): Promise<S> {
-  await new Promise<void>((resolve, reject) => {
-    socket.once('connect', () => resolve());
-    socket.once('connect_error', reject);
-  });
-  return socket;
 }
 
 // ---- Lightoff: the real API, database and auth --------------------------------------------------
 
-async function runOurs(server: RunningServer, n: number, sockets: Socket[]): Promise<PhaseResult> {
+async function runOurs(server: RunningServer, n: number): Promise<PhaseResult> {
   const deadline = performance.now() + SIZE_LIMIT_MS;
   const setupStarted = performance.now();
-  const pairs: [Peer, Peer][] = new Array(n);
-
-  const socketFor = async (cookie: string, ticketId: number): Promise<Peer> => {
-    const socket: ClientSocket = connect(server.url, {
-      transports: ['websocket'],
-      extraHeaders: { Cookie: cookie },
-      reconnection: false,
-      forceNew: true,
-    });
-    sockets.push(socket);
-    await connected(socket);
-    const joined = await socket.emitWithAck('ticket:join', { ticketId });
-    if (!joined.ok) throw new Error(`ticket:join failed: ${JSON.stringify(joined.error)}`);
-    let receive: (clientId: string) => void = () => {};
-    socket.on('message:new', ({ message }, ack) => {
-      ack?.({ ok: true });
-      if (message.clientId) receive(message.clientId);
-    });
-    return {
-      async send(clientId, body) {
-        const res = await socket.emitWithAck('message:send', { ticketId, clientId, body });
-        if (!res.ok) throw new Error(`message:send failed: ${JSON.stringify(res.error)}`);
-      },
-      onReceive(cb) {
-        receive = cb;
-      },
-    };
-  };
-
+  const pairs: ClientJob['pairs'] = new Array(n);
   const setup = forEachLimited(n, SETUP_CONCURRENCY, async (i) => {
     const { contractorClient, techClient, ticket } = await ticketWorld(server, {
       subject: 'Bench ticket',
       urgency: 'question',
     });
-    const ticketId = ticket.id;
-    pairs[i] = [
-      await socketFor(contractorClient.cookieHeader(), ticketId),
-      await socketFor(techClient.cookieHeader(), ticketId),
-    ];
+    pairs[i] = { ticketId: ticket.id, cookies: [contractorClient.cookieHeader(), techClient.cookieHeader()] };
   });
-  await beforeDeadline(setup, deadline, `N=${n} ours: setup (accounts, sign-ins, tickets, sockets)`);
+  await beforeDeadline(setup, deadline, `N=${n} ours: setup (accounts, sign-ins, tickets)`);
   console.log(`  ours  N=${n}: setup ${((performance.now() - setupStarted) / 1000).toFixed(1)} s`);
-  return exchange(pairs, performance.now() + SIZE_LIMIT_MS, `N=${n} ours`);
+  return exchange({ mode: 'ours', url: server.url, pairs }, `N=${n} ours`);
 }
 
 // ---- Baseline: a bare socket.io relay -----------------------------------------------------------
 
-interface BareClientEvents {
-  join: (room: string, ack: () => void) => void;
-  send: (payload: { room: string; clientId: string; body: string }, ack: (res: { ok: true }) => void) => void;
-}
-interface BareServerEvents {
-  new: (payload: { clientId: string; body: string }, ack?: (res: { ok: true }) => void) => void;
-}
-
 async function startBare() {
   const http = createServer();
-  const io = new Server<BareClientEvents, BareServerEvents>(http);
+  const io = new Server(http);
   io.on('connection', (socket) => {
-    socket.on('join', (room, ack) => {
+    socket.on('join', (room: string, ack: () => void) => {
       void socket.join(room);
       ack();
     });
-    socket.on('send', ({ room, clientId, body }, ack) => {
-      ack({ ok: true });
-      // Relayed with a delivery ack asked for, as the product does, but nothing waits on it.
-      socket
-        .to(room)
-        .timeout(5_000)
-        .emit('new', { clientId, body }, () => {});
-    });
+    socket.on(
+      'send',
+      (
+        { room, clientId, body }: { room: string; clientId: string; body: string },
+        ack: (r: object) => void,
+      ) => {
+        ack({ ok: true });
+        // Relayed with a delivery ack asked for, as the product does, but nothing waits on it.
+        socket
+          .to(room)
+          .timeout(5_000)
+          .emit('new', { clientId, body }, () => {});
+      },
+    );
   });
   await new Promise<void>((resolve) => http.listen(0, '127.0.0.1', resolve));
   const url = `http://127.0.0.1:${(http.address() as AddressInfo).port}`;
-  return {
-    url,
-    stop: () => new Promise<void>((resolve) => void io.close(() => resolve())),
-  };
+  return { url, stop: () => new Promise<void>((resolve) => void io.close(() => resolve())) };
 }
 
-async function runBare(url: string, n: number, sockets: Socket[]): Promise<PhaseResult> {
-  const deadline = performance.now() + SIZE_LIMIT_MS;
-  const pairs: [Peer, Peer][] = new Array(n);
-  const peer = async (room: string): Promise<Peer> => {
-    const socket: Socket<BareServerEvents, BareClientEvents> = connect(url, {
-      transports: ['websocket'],
-      reconnection: false,
-      forceNew: true,
-    });
-    sockets.push(socket);
-    await connected(socket);
-    await socket.emitWithAck('join', room);
-    let receive: (clientId: string) => void = () => {};
-    socket.on('new', ({ clientId }, ack) => {
-      ack?.({ ok: true });
-      receive(clientId);
-    });
-    return {
-      async send(clientId, body) {
-        await socket.emitWithAck('send', { room, clientId, body });
-      },
-      onReceive(cb) {
-        receive = cb;
-      },
-    };
-  };
-  const setup = forEachLimited(n, SETUP_CONCURRENCY, async (i) => {
-    pairs[i] = [await peer(`pair:${i}`), await peer(`pair:${i}`)];
-  });
-  await beforeDeadline(setup, deadline, `N=${n} bare: setup`);
-  return exchange(pairs, performance.now() + SIZE_LIMIT_MS, `N=${n} bare`);
-}
+const runBare = (url: string, n: number) =>
+  exchange(
+    { mode: 'bare', url, pairs: Array.from({ length: n }, () => ({ ticketId: 0, cookies: ['', ''] })) },
+    `N=${n} bare`,
+  );
 
 // ---- Run and report -----------------------------------------------------------------------------
 
@@ -307,39 +211,32 @@ const ms = (v: number) => (Number.isNaN(v) ? '–' : v.toFixed(1));
 const trio = (l: Latencies) => `${ms(l.p50)} / ${ms(l.p95)} / ${ms(l.p99)}`;
 const ratio = (a: number, b: number) => (b > 0 ? `${(a / b).toFixed(1)}×` : '–');
 
-function closeAll(sockets: Socket[]) {
-  for (const s of sockets.splice(0)) {
-    s.removeAllListeners();
-    s.disconnect();
-  }
-}
-
 const results: { n: number; ours: PhaseResult; bare: PhaseResult }[] = [];
 const aborted: { n: number; reason: string }[] = [];
 
-console.log(`Chat bench: sizes ${SIZES.join(', ')} pairs, ${M} messages per side, closed loop per pair.`);
+console.log(
+  `Chat bench: sizes ${SIZES.join(', ')} pairs, ${M} messages per side, ` +
+    (PACE_MS > 0
+      ? `one message per pair every ${PACE_MS} ms (sides taking turns; never before the previous ack).`
+      : 'closed loop: each message as soon as the previous one is acknowledged (saturation).'),
+);
 const server = await startTestServer();
 const bare = await startBare();
-const sockets: Socket[] = [];
 try {
   for (const n of SIZES) {
     try {
-      const ours = await runOurs(server, n, sockets);
+      const ours = await runOurs(server, n);
       console.log(`  ours  N=${n}: ${ours.ack.count} messages in ${ours.seconds.toFixed(1)} s`);
-      closeAll(sockets);
-      const bareResult = await runBare(bare.url, n, sockets);
+      const bareResult = await runBare(bare.url, n);
       console.log(`  bare  N=${n}: ${bareResult.ack.count} messages in ${bareResult.seconds.toFixed(1)} s`);
-      closeAll(sockets);
       results.push({ n, ours, bare: bareResult });
     } catch (error) {
-      closeAll(sockets);
       if (!(error instanceof SizeAborted)) throw error;
       console.error(`  N=${n} ABORTED: ${error.message}`);
       aborted.push({ n, reason: error.message });
     }
   }
 } finally {
-  closeAll(sockets);
   await bare.stop();
   await server.stop();
   await closeTestDb();
@@ -347,7 +244,7 @@ try {
 
 console.log('');
 console.log(
-  'Latencies in ms (p50 / p95 / p99). Peak RSS is of this one process: server and client sockets share it.',
+  'Latencies in ms (p50 / p95 / p99). Peak RSS is of the server process (the clients run in another).',
 );
 console.log('');
 console.log(

@@ -103,13 +103,13 @@ export async function insertMessageOnce(
     body: string;
     clientId: string | null;
   },
-): Promise<{ id: number; created: boolean }> {
+): Promise<{ id: number; created: boolean; createdAt?: string }> {
   const [row] = await db
     .insert(ticketMessages)
     .values(values)
     .onConflictDoNothing({ target: [ticketMessages.ticketId, ticketMessages.clientId] })
-    .returning({ id: ticketMessages.id });
-  if (row) return { id: row.id, created: true };
+    .returning({ id: ticketMessages.id, createdAt: isoTime(ticketMessages.createdAt) });
+  if (row) return { id: row.id, created: true, createdAt: row.createdAt };
   const [existing] = await db
     .select({ id: ticketMessages.id })
     .from(ticketMessages)

@@ -1,7 +1,5 @@
-import { eq, sql } from 'drizzle-orm';
 import type { AppContext } from '../../context';
 import type { Message, MessageCreate, SessionUser } from '../../../../shared/src/index';
-import { tickets } from '../../db/schema/index';
 import { AppError } from '../../lib/errors';
 import { authorize, can } from '../../lib/policies';
 import * as messages from './messages.repository';
@@ -32,56 +30,68 @@ export async function postMessage(
   const scope = await loadScope(ctx.db, user, ticketId);
   if (input.kind === 'internal-note') authorize(user, 'note.post', scope);
   const isStaff = user.role !== 'contractor';
-  const { id, created } = await ctx.db.transaction(async (tx) => {
-    const result = await messages.insertMessageOnce(tx, {
+  const isAnswer = input.kind === 'message';
+  let nextStatus: typeof scope.status | undefined;
+  if (isAnswer && isStaff && scope.status === 'new') nextStatus = 'open';
+  if (isAnswer && !isStaff && scope.status === 'waiting-on-contractor') nextStatus = 'open';
+  const stampFirstResponse = isAnswer && isStaff && !scope.firstResponseAt;
+
+  const result = await ctx.db.transaction(async (tx) => {
+    const inserted = await messages.insertMessageOnce(tx, {
       ticketId,
       authorId: user.id,
       kind: input.kind,
       body: input.body,
       clientId: input.clientId,
     });
-    if (!result.created) return result;
-    const linked = await messages.linkAttachments(tx, result.id, ticketId, user.id, input.attachmentIds);
+    if (!inserted.created) return inserted;
+    const linked = await messages.linkAttachments(tx, inserted.id, ticketId, user.id, input.attachmentIds);
     if (linked !== new Set(input.attachmentIds).size) {
       throw AppError.validation({
         attachmentIds: 'Some photos were not uploaded to this ticket by you, or are already sent',
       });
     }
-    const statusNow = scope.status;
-    let nextStatus: typeof statusNow | undefined;
-    if (input.kind === 'message') {
-      if (isStaff && statusNow === 'new') nextStatus = 'open';
-      if (!isStaff && statusNow === 'waiting-on-contractor') nextStatus = 'open';
-    }
-    await tx
-      .update(tickets)
-      .set({
-        lastMessageAt: new Date(),
-        updatedAt: new Date(),
-        ...(nextStatus ? { status: nextStatus } : {}),
-        ...(isStaff && input.kind === 'message'
-          ? { firstResponseAt: sql`coalesce(${tickets.firstResponseAt}, now())` }
-          : {}),
-      })
-      .where(eq(tickets.id, ticketId));
+    await ticketsRepo.touchAfterMessage(tx, ticketId, {
+      status: nextStatus,
+      stampFirstResponse: isStaff && isAnswer,
+    });
     if (nextStatus) {
       await ticketsRepo.insertEvents(tx, [
-        { ticketId, actorId: user.id, field: 'status', fromValue: statusNow, toValue: nextStatus },
+        { ticketId, actorId: user.id, field: 'status', fromValue: scope.status, toValue: nextStatus },
       ]);
     }
-    return result;
+    return inserted;
   });
-  const message = (await messages.findMessage(ctx.db, id))!;
-  if (created) void fanOut(ctx, message, user);
+  if (!result.created) return (await messages.findMessage(ctx.db, result.id))!;
+  // A new message without files is known in full already; with files, read them back once.
+  const message: Message =
+    input.attachmentIds.length === 0
+      ? {
+          id: result.id,
+          ticketId,
+          clientId: input.clientId,
+          kind: input.kind,
+          body: input.body,
+          author: { id: user.id, name: user.name, role: user.role },
+          attachments: [],
+          createdAt: result.createdAt!,
+          deliveredAt: null,
+          readAt: null,
+        }
+      : (await messages.findMessage(ctx.db, result.id))!;
+  // The desk board and ticket lists show status and first response, so they hear of those changes.
+  void fanOut(ctx, message, user, Boolean(nextStatus) || stampFirstResponse);
   return message;
 }
 
 /** After the commit: the author's side sees it; the other side acks it, which marks it delivered. */
-async function fanOut(ctx: AppContext, message: Message, author: SessionUser) {
+async function fanOut(ctx: AppContext, message: Message, author: SessionUser, ticketChanged: boolean) {
   try {
     const ticketId = message.ticketId;
-    const ticket = await ticketsRepo.findTicket(ctx.db, ticketId);
-    if (ticket) announce(ctx, ticket);
+    if (ticketChanged) {
+      const ticket = await ticketsRepo.findTicket(ctx.db, ticketId);
+      if (ticket) announce(ctx, ticket);
+    }
     if (message.kind === 'internal-note') {
       ctx.realtime.emit([rooms.ticketStaff(ticketId)], 'message:new', { message });
       return;

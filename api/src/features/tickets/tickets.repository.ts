@@ -197,6 +197,25 @@ export async function updateTicketRow(db: Executor, id: number, patch: Partial<t
     .where(eq(tickets.id, id));
 }
 
+/** A message went in: the ticket's last activity, an optional status move, and the first answer's time. */
+export async function touchAfterMessage(
+  db: Executor,
+  id: number,
+  change: { status?: TicketStatus; stampFirstResponse: boolean },
+) {
+  await db
+    .update(tickets)
+    .set({
+      lastMessageAt: new Date(),
+      updatedAt: new Date(),
+      ...(change.status ? { status: change.status } : {}),
+      ...(change.stampFirstResponse
+        ? { firstResponseAt: sql`coalesce(${tickets.firstResponseAt}, now())` }
+        : {}),
+    })
+    .where(eq(tickets.id, id));
+}
+
 export async function insertEvents(
   db: Executor,
   events: {
