@@ -29,8 +29,8 @@ export interface ServerToClientEvents {
   typing: (payload: { ticketId: number; userId: number; name: string }) => void;
   /** A ticket was opened or changed: status, assignee, branch, urgency, last message. */
   'ticket:updated': (payload: { ticket: Ticket }) => void;
-  /** Who on the desk is online now (sent to staff). */
-  'presence:desk': (payload: { online: PresenceEntry[] }) => void;
+  /** Someone at one of your branch desks came online or went offline (sent to staff). */
+  'presence:changed': (payload: { entry: PresenceEntry; online: boolean }) => void;
 }
 
 export interface MessageSendPayload {

@@ -16,7 +16,7 @@
 import { fork } from 'node:child_process';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { performance } from 'node:perf_hooks';
+import { monitorEventLoopDelay, performance } from 'node:perf_hooks';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { Server } from 'socket.io';
@@ -131,6 +131,8 @@ async function exchange(
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
   });
   let peakRss = process.memoryUsage().rss;
+  const loopDelay = monitorEventLoopDelay({ resolution: 10 });
+  loopDelay.enable();
   const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 50);
   try {
     const report = await new Promise<ClientReport>((resolve, reject) => {
@@ -139,6 +141,11 @@ async function exchange(
       child.send({ ...job, messagesPerSide: M, paceMs: PACE_MS, limitMs: SIZE_LIMIT_MS } satisfies ClientJob);
     });
     if (!report.ok) throw new SizeAborted(`${label}: ${report.error}`);
+    loopDelay.disable();
+    console.log(
+      `  ${label}: server event-loop delay p99 ${(loopDelay.percentile(99) / 1e6).toFixed(1)} ms, ` +
+        `max ${(loopDelay.max / 1e6).toFixed(1)} ms`,
+    );
     return {
       ack: summarise(report.ackMs),
       delivered: summarise(report.deliveredMs),

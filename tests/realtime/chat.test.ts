@@ -260,4 +260,33 @@ describe('reconnecting and live updates', () => {
     const refused = await contractor.emitWithAck('presence:list');
     expect(refused.ok).toBe(false);
   });
+
+  it('When a tech comes online and leaves, then their branch desk hears it once each way and other branches do not', async () => {
+    const branchTech = await makeUser({ role: 'tech' });
+    const colleague = await makeUser({
+      role: 'tech',
+      branchIds: branchTech.branchIds,
+      name: 'Desk Colleague',
+    });
+    const elsewhere = await socketFor(await signedInClient(server, await makeUser({ role: 'tech' })));
+    const watcher = await socketFor(await signedInClient(server, branchTech));
+    const heard: unknown[] = [];
+    const heardElsewhere: unknown[] = [];
+    watcher.on('presence:changed', (p) => void heard.push(p));
+    elsewhere.on('presence:changed', (p) => void heardElsewhere.push(p));
+    const colleagueClient = await signedInClient(server, colleague);
+    const first = await socketFor(colleagueClient);
+    const second = await socketFor(colleagueClient);
+    await settle();
+    second.disconnect();
+    await settle();
+    first.disconnect();
+    await settle();
+    const entry = { userId: colleague.id, name: 'Desk Colleague', role: 'tech' };
+    expect(heard).toEqual([
+      { entry, online: true },
+      { entry, online: false },
+    ]);
+    expect(heardElsewhere).toEqual([]);
+  });
 });

@@ -58,16 +58,14 @@ export function attachRealtime(
     const { user, sessionId } = socket.data;
     const joined = [rooms.user(user.id), rooms.session(sessionId)];
     if (user.role === 'contractor' && user.accountId) joined.push(rooms.account(user.accountId));
-    else joined.push(rooms.staff, ...user.branchIds.map(rooms.desk));
+    else joined.push(...user.branchIds.map(rooms.desk));
     void socket.join(joined);
     socket.on('session:whoami', (ack) => {
       if (typeof ack === 'function') ack({ ok: true, user: socket.data.user });
     });
     for (const register of FEATURE_HANDLERS) register(ctx, io, socket);
-    if (user.role !== 'contractor') void announcePresence(io);
-    socket.on('disconnect', () => {
-      if (user.role !== 'contractor') void announcePresence(io);
-    });
+    void announcePresence(io, user, true);
+    socket.on('disconnect', () => void announcePresence(io, user, false));
   });
 
   const endRoom = (room: string, reason: Parameters<ServerToClientEvents['session:ended']>[0]['reason']) => {

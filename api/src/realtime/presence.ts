@@ -1,9 +1,15 @@
 import type { PresenceEntry } from '../../../shared/src/events';
+import type { SessionUser } from '../../../shared/src/schemas/auth';
+import { rooms } from '../features/tickets/rooms';
 import type { Io } from './io';
 
-/** Who on the desk is online, read from the connected sockets (across instances, through the adapter). */
-export async function deskPresence(io: Io): Promise<PresenceEntry[]> {
-  const sockets = await io.in('staff').fetchSockets();
+/**
+ * Who is online at the given branch desks, read from the connected sockets (across instances,
+ * through the adapter); nothing is kept in this process's memory.
+ */
+export async function deskPresence(io: Io, branchIds: number[]): Promise<PresenceEntry[]> {
+  if (branchIds.length === 0) return [];
+  const sockets = await io.in(branchIds.map(rooms.desk)).fetchSockets();
   const byUser = new Map<number, PresenceEntry>();
   for (const s of sockets) {
     const u = s.data.user;
@@ -12,9 +18,21 @@ export async function deskPresence(io: Io): Promise<PresenceEntry[]> {
   return [...byUser.values()].sort((a, b) => a.name.localeCompare(b.name));
 }
 
-export async function announcePresence(io: Io): Promise<void> {
+/**
+ * Tells the user's branch desks when their first socket connects or their last one closes. Only
+ * the change travels, and only to their own desks: a full list to every staff socket on every
+ * connection grows with the square of the desk.
+ */
+export async function announcePresence(io: Io, user: SessionUser, online: boolean): Promise<void> {
+  if (user.role === 'contractor' || user.branchIds.length === 0) return;
   try {
-    io.to('staff').emit('presence:desk', { online: await deskPresence(io) });
+    const stillConnected = (await io.in(rooms.user(user.id)).fetchSockets()).length;
+    // Connecting: announce only the first socket; disconnecting: only when none is left.
+    if (online ? stillConnected !== 1 : stillConnected !== 0) return;
+    io.to(user.branchIds.map(rooms.desk)).emit('presence:changed', {
+      entry: { userId: user.id, name: user.name, role: user.role },
+      online,
+    });
   } catch {
     // Presence is a courtesy; a failed round-trip to another instance must not break a connection.
   }

@@ -9,6 +9,4 @@ export const rooms = {
   ticketStaff: (id: number) => `ticket:${id}:staff`,
   /** Contractor sockets in a ticket. */
   ticketContractor: (id: number) => `ticket:${id}:contractor`,
-  /** Every staff socket, for desk presence. */
-  staff: 'staff',
 };

@@ -104,14 +104,32 @@ const base = (db: Executor) =>
     .leftJoin(assignee, eq(assignee.id, tickets.assigneeId))
     .leftJoin(firstResponseTargets, eq(firstResponseTargets.urgency, tickets.urgency));
 
+/**
+ * The two reads every chat message and ticket change makes, as named prepared statements: built
+ * and planned once per connection instead of on every call.
+ */
+const prepared = new WeakMap<Executor, ReturnType<typeof prepare>>();
+function prepare(db: Executor) {
+  const id = sql.placeholder('id');
+  return {
+    ticket: base(db).where(eq(tickets.id, id)).prepare('ticket_by_id'),
+    scope: scopeQuery(db).where(eq(tickets.id, id)).prepare('ticket_scope_by_id'),
+  };
+}
+function statements(db: Executor) {
+  let s = prepared.get(db);
+  if (!s) prepared.set(db, (s = prepare(db)));
+  return s;
+}
+
 export async function findTicket(db: Executor, id: number): Promise<Ticket | undefined> {
-  const [row] = await base(db).where(eq(tickets.id, id));
+  const [row] = await statements(db).ticket.execute({ id });
   return row ? toTicket(row) : undefined;
 }
 
 /** Who a ticket belongs to, for the policy, without building the whole ticket. */
-export async function findTicketScope(db: Executor, id: number) {
-  const [row] = await db
+function scopeQuery(db: Executor) {
+  return db
     .select({
       id: tickets.id,
       accountId: tickets.accountId,
@@ -122,8 +140,11 @@ export async function findTicketScope(db: Executor, id: number) {
       firstResponseAt: tickets.firstResponseAt,
       openedById: tickets.openedById,
     })
-    .from(tickets)
-    .where(eq(tickets.id, id));
+    .from(tickets);
+}
+
+export async function findTicketScope(db: Executor, id: number) {
+  const [row] = await statements(db).scope.execute({ id });
   return row;
 }
 export type TicketScope = NonNullable<Awaited<ReturnType<typeof findTicketScope>>>;

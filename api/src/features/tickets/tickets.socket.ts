@@ -111,7 +111,7 @@ export function registerTicketHandlers(ctx: AppContext, io: Io, socket: AppSocke
       ack({ ok: false, error: { code: 'forbidden', message: 'Desk presence is for staff' } });
       return;
     }
-    deskPresence(io).then(
+    deskPresence(io, user().branchIds).then(
       (online) => ack({ ok: true, online }),
       (err) => ack({ ok: false, error: handleError(err, ctx.logger).body.error }),
     );
