@@ -21,6 +21,7 @@ import { ticketsRouter } from './features/tickets/index';
 import { attachmentsRouter } from './features/attachments/index';
 import { equipmentRouter } from './features/equipment/index';
 import { snippetsRouter } from './features/snippets/index';
+import { deskRouter } from './features/desk/index';
 
 export interface CreatedApp {
   app: Express;
@@ -86,6 +87,7 @@ export function createApp(ctx: AppContext): CreatedApp {
   api.use('/attachments', attachmentsRouter(ctx));
   api.use('/equipment', equipmentRouter(ctx));
   api.use('/snippets', snippetsRouter(ctx));
+  api.use('/desk', deskRouter(ctx));
   api.use((req) => {
     throw new AppError('not_found', `No such API route: ${req.method} ${req.baseUrl}${req.path}`, 404);
   });

@@ -4,3 +4,4 @@ export * from './schemas/admin';
 export * from './schemas/home';
 export type * from './events';
 export * from './schemas/tickets';
+export * from './schemas/desk';

@@ -26,6 +26,9 @@ describe('policy matrix', () => {
     ['home.view', { contractor: true, tech: true, specialist: true, admin: true }],
     ['password.change', { contractor: true, tech: true, specialist: true, admin: true }],
     ['realtime.connect', { contractor: true, tech: true, specialist: true, admin: true }],
+    ['desk.view', { contractor: false, tech: true, specialist: true, admin: true }],
+    ['snippet.use', { contractor: false, tech: true, specialist: true, admin: true }],
+    ['note.view', { contractor: false, tech: true, specialist: true, admin: true }],
   ];
   for (const [action, expected] of matrix) {
     it(`When each role asks for ${action}, then only the expected roles may`, () => {

@@ -22,7 +22,8 @@ export type Action =
   | 'note.view'
   | 'note.post'
   | 'snippet.use'
-  | 'snippet.edit';
+  | 'snippet.edit'
+  | 'desk.view';
 
 export interface Resource {
   accountId?: number | null;
@@ -61,6 +62,7 @@ const RULES: Record<Action, Rule> = {
   'note.view': staffOnly,
   'note.post': staffOnly,
   'snippet.use': staffOnly,
+  'desk.view': staffOnly,
   // Personal snippets: their owner. Shared ones: whoever made them, specialists and admins.
   'snippet.edit': (u, r) =>
     isStaff(u) &&

@@ -1,0 +1,1 @@
+export { deskRouter } from './desk.routes';
