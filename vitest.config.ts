@@ -19,7 +19,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'unit',
-          include: ['shared/src/**/*.spec.ts', 'api/src/**/*.spec.ts', 'web/src/**/*.spec.ts'],
+          include: ['shared/src/**/*.spec.ts', 'api/src/**/*.spec.ts', 'web/src/**/*.spec.ts', 'tests/reference/**/*.test.ts'],
           environment: 'node',
           server: { deps: { inline: ['element-plus'] } },
         },

@@ -22,6 +22,7 @@ import { attachmentsRouter } from './features/attachments/index';
 import { equipmentRouter } from './features/equipment/index';
 import { snippetsRouter } from './features/snippets/index';
 import { deskRouter } from './features/desk/index';
+import { checksRouter } from './features/checks/index';
 
 export interface CreatedApp {
   app: Express;
@@ -88,6 +89,7 @@ export function createApp(ctx: AppContext): CreatedApp {
   api.use('/equipment', equipmentRouter(ctx));
   api.use('/snippets', snippetsRouter(ctx));
   api.use('/desk', deskRouter(ctx));
+  api.use('/checks', checksRouter(ctx));
   api.use((req) => {
     throw new AppError('not_found', `No such API route: ${req.method} ${req.baseUrl}${req.path}`, 404);
   });

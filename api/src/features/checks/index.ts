@@ -1,0 +1,1 @@
+export { checksRouter } from './checks.routes';

@@ -1,0 +1,90 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeTestDb, makeEquipmentModel, makeUser, testDb } from '../support/fixtures';
+import { signedInClient, startTestServer, TestClient } from '../support/server';
+import type { RunningServer } from '../../api/src/server';
+import { equipmentModels } from '../../api/src/db/schema/index';
+import { eq } from 'drizzle-orm';
+
+let server: RunningServer;
+let client: TestClient;
+beforeAll(async () => {
+  server = await startTestServer();
+  client = await signedInClient(server, await makeUser());
+});
+afterAll(async () => {
+  await server.stop();
+  await closeTestDb();
+});
+
+describe('check routes', () => {
+  it('When a unit conversion is asked for, then the answer carries its source and caution', async () => {
+    const res = await client.post('/api/checks/convert', { value: 1, from: 'in_wc', to: 'pa' });
+    expect(res.status).toBe(200);
+    expect(res.body.result.value).toBeCloseTo(249.0889, 3);
+    expect(res.body.result.source).toMatch(/NIST SP 811/);
+    expect(res.body.result.cautions.length).toBeGreaterThan(0);
+  });
+
+  it('When a value is impossible, then 400 names the field: negative length, O₂ at 20.9 %, a negative rise', async () => {
+    const pipe = await client.post('/api/checks/pipe-size', {
+      fuel: 'natural-gas',
+      lengthFt: -10,
+      loadBtuh: 80000,
+    });
+    expect(pipe.status).toBe(400);
+    expect(pipe.body.error.fields).toHaveProperty('lengthFt');
+    const co = await client.post('/api/checks/co-air-free', { coPpm: 50, o2Pct: 20.9 });
+    expect(co.body.error.fields).toHaveProperty('o2Pct');
+    const rise = await client.post('/api/checks/temperature-rise', {
+      outputBtuh: 80000,
+      supplyF: 60,
+      returnF: 70,
+    });
+    expect(rise.body.error.fields).toHaveProperty('supplyF');
+  });
+
+  it('When the kind is unknown, then 404', async () => {
+    expect((await client.post('/api/checks/flux-capacity', {})).status).toBe(404);
+  });
+
+  it('When nobody is signed in, then 401', async () => {
+    expect(
+      (await new TestClient(server).post('/api/checks/convert', { value: 1, from: 'psi', to: 'pa' })).status,
+    ).toBe(401);
+  });
+
+  it('When gas pressure is checked for a model with a spec, then the model spec is used, else common practice', async () => {
+    const model = await makeEquipmentModel();
+    await testDb()
+      .db.update(equipmentModels)
+      .set({
+        spec: {
+          gasPressure: {
+            'natural-gas': {
+              inletMinInWc: 4.5,
+              inletMaxInWc: 10.5,
+              manifold: [{ stage: 'high', targetInWc: 3.2, toleranceInWc: 0.2 }],
+            },
+          },
+        },
+      })
+      .where(eq(equipmentModels.id, model.id));
+    const withModel = await client.post('/api/checks/gas-pressure', {
+      fuel: 'natural-gas',
+      equipmentModelId: model.id,
+      manifold: [{ stage: 'high', valueInWc: 3.5 }],
+    });
+    expect(withModel.body.result.specSource).toBe('model');
+    expect(withModel.body.result.items[0]).toMatchObject({
+      verdict: 'high',
+      adjust: 'lower',
+      targetInWc: 3.2,
+    });
+    const typical = await client.post('/api/checks/gas-pressure', {
+      fuel: 'natural-gas',
+      manifold: [{ stage: 'high', valueInWc: 3.5 }],
+    });
+    expect(typical.body.result.specSource).toBe('typical');
+    expect(typical.body.result.items[0].verdict).toBe('ok');
+  });
+});
