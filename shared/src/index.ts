@@ -5,3 +5,4 @@ export * from './schemas/home';
 export type * from './events';
 export * from './schemas/tickets';
 export * from './schemas/desk';
+export * from './schemas/equipmentSpec';

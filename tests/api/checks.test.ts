@@ -59,7 +59,9 @@ describe('check routes', () => {
       .db.update(equipmentModels)
       .set({
         spec: {
-          gasPressure: {
+          staging: 'single',
+          inputBtuh: { high: 80_000 },
+          fuels: {
             'natural-gas': {
               inletMinInWc: 4.5,
               inletMaxInWc: 10.5,

@@ -227,3 +227,18 @@ describe('gas pressure (facts of the trade: common practice, no source)', () => 
     expect(gasPressureInputSchema.safeParse({ fuel: 'natural-gas' }).success).toBe(false);
   });
 });
+
+describe('the demo catalogue', () => {
+  it('When the demo specs are read, then every one parses and every gas unit has a natural-gas spec', async () => {
+    const { DEMO_EQUIPMENT } = await import('../../api/src/db/seed/equipment');
+    const { equipmentSpecSchema, gasSpecOf } = await import('../../shared/src/schemas/equipmentSpec');
+    for (const model of DEMO_EQUIPMENT) {
+      if (model.spec === null) {
+        expect(model.fuels).toEqual([]);
+        continue;
+      }
+      expect(equipmentSpecSchema.safeParse(model.spec).success, model.modelNumber).toBe(true);
+      expect(gasSpecOf(model.spec, 'natural-gas'), model.modelNumber).not.toBeNull();
+    }
+  });
+});

@@ -26,6 +26,8 @@ describe('policy matrix', () => {
     ['home.view', { contractor: true, tech: true, specialist: true, admin: true }],
     ['password.change', { contractor: true, tech: true, specialist: true, admin: true }],
     ['realtime.connect', { contractor: true, tech: true, specialist: true, admin: true }],
+    ['equipment.edit', { contractor: false, tech: false, specialist: true, admin: true }],
+    ['check.run', { contractor: true, tech: true, specialist: true, admin: true }],
     ['desk.view', { contractor: false, tech: true, specialist: true, admin: true }],
     ['snippet.use', { contractor: false, tech: true, specialist: true, admin: true }],
     ['note.view', { contractor: false, tech: true, specialist: true, admin: true }],

@@ -24,7 +24,8 @@ export type Action =
   | 'snippet.use'
   | 'snippet.edit'
   | 'desk.view'
-  | 'check.run';
+  | 'check.run'
+  | 'equipment.edit';
 
 export interface Resource {
   accountId?: number | null;
@@ -66,6 +67,8 @@ const RULES: Record<Action, Rule> = {
   'desk.view': staffOnly,
   // The checks are arithmetic anyone signed in may run; nothing of another account is read.
   'check.run': anyone,
+  // Specialists keep the catalogue and its spec tables; admins may too.
+  'equipment.edit': (u) => u.role === 'specialist' || u.role === 'admin',
   // Personal snippets: their owner. Shared ones: whoever made them, specialists and admins.
   'snippet.edit': (u, r) =>
     isStaff(u) &&

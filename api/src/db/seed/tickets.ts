@@ -1,7 +1,7 @@
 // Forty invented demo tickets across the accounts, with conversations and generated photos.
 import { createHash, randomUUID } from 'node:crypto';
 import sharp from 'sharp';
-import { count, eq } from 'drizzle-orm';
+import { count, eq, sql } from 'drizzle-orm';
 import type { Db } from '../client';
 import {
   attachments,
@@ -132,11 +132,15 @@ async function demoPhoto(seed: number): Promise<Buffer> {
   return sharp(Buffer.from(svg)).jpeg({ quality: 80 }).toBuffer();
 }
 
+/** Adds missing models, and fills in the spec of a model that has none yet (never overwrites one). */
 export async function seedEquipment(db: Db) {
   await db
     .insert(equipmentModels)
     .values(DEMO_EQUIPMENT)
-    .onConflictDoNothing({ target: equipmentModels.modelNumber });
+    .onConflictDoUpdate({
+      target: equipmentModels.modelNumber,
+      set: { spec: sql`coalesce(${equipmentModels.spec}, excluded.spec)` },
+    });
 }
 
 /** Adds the demo tickets once (skipped when any ticket exists). */

@@ -1,12 +1,8 @@
 import { eq } from 'drizzle-orm';
 import type { AppContext } from '../../context';
 import { equipmentModels } from '../../db/schema/index';
-import {
-  checkGasPressure,
-  gasPressureSpecSchema,
-  TYPICAL_SPEC,
-  type GasPressureInput,
-} from '../../../../shared/src/calc/index';
+import { checkGasPressure, TYPICAL_SPEC, type GasPressureInput } from '../../../../shared/src/calc/index';
+import { gasSpecOf } from '../../../../shared/src/schemas/equipmentSpec';
 import { AppError } from '../../lib/errors';
 
 /** The gas-pressure spec to judge by: the body's, else the unit's catalogue spec, else common practice. */
@@ -18,10 +14,8 @@ export async function runGasPressure(ctx: AppContext, input: GasPressureInput) {
       .from(equipmentModels)
       .where(eq(equipmentModels.id, input.equipmentModelId));
     if (!model) throw AppError.validation({ equipmentModelId: 'This model is not in the catalogue' });
-    const fromModel = gasPressureSpecSchema.safeParse(
-      (model.spec as { gasPressure?: Record<string, unknown> } | null)?.gasPressure?.[input.fuel],
-    );
-    if (fromModel.success) return checkGasPressure(input, fromModel.data, 'model');
+    const fromModel = gasSpecOf(model.spec, input.fuel);
+    if (fromModel) return checkGasPressure(input, fromModel, 'model');
   }
   return checkGasPressure(input, TYPICAL_SPEC[input.fuel], 'typical');
 }

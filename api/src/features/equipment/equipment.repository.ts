@@ -39,3 +39,29 @@ export async function equipmentExists(db: Executor, id: number): Promise<boolean
     .where(eq(equipmentModels.id, id));
   return !!row;
 }
+
+/** One model with its spec table. */
+export async function findModel(db: Executor, id: number) {
+  const [row] = await db
+    .select({
+      id: equipmentModels.id,
+      brand: equipmentModels.brand,
+      modelNumber: equipmentModels.modelNumber,
+      family: equipmentModels.family,
+      type: equipmentModels.type,
+      fuels: equipmentModels.fuels,
+      spec: equipmentModels.spec,
+    })
+    .from(equipmentModels)
+    .where(eq(equipmentModels.id, id));
+  return row;
+}
+
+export async function updateSpec(db: Executor, id: number, spec: Record<string, unknown> | null) {
+  const [row] = await db
+    .update(equipmentModels)
+    .set({ spec })
+    .where(eq(equipmentModels.id, id))
+    .returning({ id: equipmentModels.id });
+  return !!row;
+}
