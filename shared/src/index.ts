@@ -6,3 +6,4 @@ export type * from './events';
 export * from './schemas/tickets';
 export * from './schemas/desk';
 export * from './schemas/equipmentSpec';
+export * from './schemas/readings';

@@ -157,6 +157,8 @@ export const messageSchema = z.object({
   createdAt: z.string(),
   deliveredAt: z.string().nullable(),
   readAt: z.string().nullable(),
+  /** Structured content of an event message, e.g. a check result card: { type: 'reading', reading }. */
+  data: z.record(z.string(), z.unknown()).nullable().optional(),
 });
 export type Message = z.infer<typeof messageSchema>;
 

@@ -104,6 +104,8 @@ export const ticketMessages = pgTable(
     body: text().notNull(),
     /** Chosen by the sender's device; the same id twice is the same message. */
     clientId: text(),
+    /** Structured content of an event message (a check result card). */
+    data: jsonb().$type<Record<string, unknown>>(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     deliveredAt: timestamp({ withTimezone: true }),
     readAt: timestamp({ withTimezone: true }),
@@ -171,3 +173,24 @@ export const firstResponseTargets = pgTable('first_response_targets', {
   urgency: urgencyEnum().primaryKey(),
   minutes: integer().notNull(),
 });
+
+/** What was measured on the job, with the check's result against the unit's spec at the time. */
+export const ticketReadings = pgTable(
+  'ticket_readings',
+  {
+    id: integer().primaryKey().generatedAlwaysAsIdentity(),
+    ticketId: integer()
+      .notNull()
+      .references(() => tickets.id, { onDelete: 'cascade' }),
+    authorId: integer()
+      .notNull()
+      .references(() => users.id),
+    kind: text().notNull(),
+    values: jsonb().$type<Record<string, unknown>>().notNull(),
+    result: jsonb().$type<Record<string, unknown>>().notNull(),
+    verdict: text(),
+    messageId: integer().references(() => ticketMessages.id, { onDelete: 'set null' }),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('ticket_readings_ticket_idx').on(t.ticketId, t.id)],
+);

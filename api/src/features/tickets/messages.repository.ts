@@ -35,6 +35,7 @@ const messageColumns = {
   clientId: ticketMessages.clientId,
   kind: ticketMessages.kind,
   body: ticketMessages.body,
+  data: ticketMessages.data,
   authorId: users.id,
   authorName: users.name,
   authorRole: users.role,
@@ -102,6 +103,7 @@ export async function insertMessageOnce(
     kind: Message['kind'];
     body: string;
     clientId: string | null;
+    data?: Record<string, unknown> | null;
   },
 ): Promise<{ id: number; created: boolean; createdAt?: string }> {
   const [row] = await db

@@ -77,6 +77,7 @@ export async function postMessage(
           createdAt: result.createdAt!,
           deliveredAt: null,
           readAt: null,
+          data: null,
         }
       : (await messages.findMessage(ctx.db, result.id))!;
   // The desk board and ticket lists show status and first response, so they hear of those changes.
@@ -85,7 +86,7 @@ export async function postMessage(
 }
 
 /** After the commit: the author's side sees it; the other side acks it, which marks it delivered. */
-async function fanOut(ctx: AppContext, message: Message, author: SessionUser, ticketChanged: boolean) {
+export async function fanOut(ctx: AppContext, message: Message, author: SessionUser, ticketChanged: boolean) {
   try {
     const ticketId = message.ticketId;
     if (ticketChanged) {

@@ -11,6 +11,7 @@ import {
 import { signedIn } from '../../lib/policies';
 import { parsed, validate } from '../../lib/validate';
 import { ticketAttachmentsRouter } from '../attachments/attachments.routes';
+import { ticketReadingsRouter } from '../readings/index';
 import { listMessages, postMessage } from './messages.service';
 import { claimTicket, createTicket, getTicket, listTickets, updateTicket } from './tickets.service';
 
@@ -60,5 +61,6 @@ export function ticketsRouter(ctx: AppContext): Router {
   });
 
   router.use('/:id/attachments', ticketAttachmentsRouter(ctx));
+  router.use('/:id/readings', ticketReadingsRouter(ctx));
   return router;
 }

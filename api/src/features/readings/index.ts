@@ -1,0 +1,1 @@
+export { ticketReadingsRouter } from './readings.routes';
