@@ -1,4 +1,8 @@
 // A contractor asks the desk from a phone; the tech watching the open-tickets board sees it arrive live.
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import sharp from 'sharp';
 import { afterAll, describe, expect, it } from 'vitest';
 import { DESKTOP, PHONE, newSession, screenshot } from '../support/browser';
 import { closeTestDb, makeAccount, makeBranch, makeUser } from '../support/fixtures';
@@ -13,6 +17,15 @@ describe('ticket flow', () => {
     const contractor = await makeUser({ role: 'contractor', accountId: account.id, name: 'Rowan Fielding' });
     const tech = await makeUser({ role: 'tech', branchIds: [branch.id], name: 'Sam Okafor' });
     const subject = `Furnace locks out ${Date.now()}`;
+
+    const dir = await mkdtemp(join(tmpdir(), 'lightoff-plate-'));
+    const platePhoto = join(dir, 'rating-plate.jpg');
+    await writeFile(
+      platePhoto,
+      await sharp({ create: { width: 800, height: 600, channels: 3, background: '#8a9bb0' } })
+        .jpeg()
+        .toBuffer(),
+    );
 
     const desk = await newSession({ viewport: DESKTOP });
     const phone = await newSession({ viewport: PHONE });
@@ -37,12 +50,17 @@ describe('ticket flow', () => {
       await page.getByText('Job on hold', { exact: true }).click();
       await page.getByText('Natural gas', { exact: true }).click();
       await page.getByLabel('What you see and what you have tried').fill('Three tries, then hard lockout.');
+      await page.getByTestId('photo-library').setInputFiles(platePhoto);
+      await page.getByTestId('photo-item').getByText('Ready to upload').waitFor();
+      await screenshot(page, 'ticket-new-photo-phone');
       expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
         PHONE.width,
       );
       await page.getByRole('button', { name: 'Send to the desk' }).click();
       await page.waitForURL(/\/tickets\/\d+$/);
       await page.getByRole('heading', { level: 1, name: subject }).waitFor();
+      // The photo from the form is the conversation's first message.
+      await page.getByTestId('message').getByTestId('message-photo').locator('img').waitFor();
 
       // The tech's board, never reloaded, now lists it.
       const row = desk.page.getByTestId('board-row').filter({ hasText: subject });
@@ -67,6 +85,7 @@ describe('ticket flow', () => {
     } finally {
       await desk.close();
       await phone.close();
+      await rm(dir, { recursive: true, force: true });
     }
   });
 });

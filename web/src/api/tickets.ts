@@ -7,7 +7,7 @@ import type {
   TicketStatus,
   TicketUpdate,
 } from '@shared/schemas/tickets';
-import { http, type Query } from './http';
+import { http, type Query, type UploadOptions } from './http';
 
 export interface TicketListParams extends Query {
   status?: TicketStatus | 'active';
@@ -44,11 +44,11 @@ export const ticketsApi = {
   create: (draft: TicketDraft) => http.post<{ ticket: Ticket }>('/tickets', draft),
   update: (id: number, change: TicketUpdate) => http.patch<{ ticket: Ticket }>(`/tickets/${id}`, change),
   claim: (id: number) => http.post<{ ticket: Ticket }>(`/tickets/${id}/claim`),
-  /** POST /api/tickets/:id/attachments: photos, sent as multipart field `files`. */
-  upload: (id: number, files: readonly File[]) => {
+  /** POST /api/tickets/:id/attachments: photos and PDFs, sent as multipart field `files`. */
+  upload: (id: number, files: readonly File[], options?: UploadOptions) => {
     const form = new FormData();
     for (const file of files) form.append('files', file);
-    return http.post<{ attachments: Attachment[] }>(`/tickets/${id}/attachments`, form);
+    return http.upload<{ attachments: Attachment[] }>(`/tickets/${id}/attachments`, form, options);
   },
   messages: (id: number, after?: number, signal?: AbortSignal) =>
     http.get<{ items: Message[] }>(`/tickets/${id}/messages`, { after }, signal),

@@ -1,8 +1,9 @@
-import { reactive, ref } from 'vue';
+import { reactive, ref, type Ref } from 'vue';
 import { useI18n } from 'vue-i18n';
-import type { EquipmentModel, Fuel, Ticket, Urgency } from '@shared/schemas/tickets';
+import type { Attachment, EquipmentModel, Fuel, Ticket, Urgency } from '@shared/schemas/tickets';
 import { equipmentApi, ticketsApi, type TicketDraft } from '@/api/tickets';
 import { useFormErrors } from './useFormErrors';
+import { newClientId } from './useTicketChat';
 
 export const TICKET_FIELDS = [
   'subject',
@@ -42,6 +43,13 @@ export function toDraft(values: TicketFormValues): TicketDraft | { missing: 'sub
   return draft;
 }
 
+/** The photos chosen in the form (see usePhotoUpload). */
+export interface FormPhotos {
+  items: Ref<readonly unknown[]>;
+  attachments: Ref<Attachment[]>;
+  uploadAll: (ticketId: number) => Promise<boolean>;
+}
+
 /** The "new ticket" form: values, catalogue search, errors in place, and submit. */
 export function useTicketForm() {
   const { t } = useI18n();
@@ -57,6 +65,8 @@ export function useTicketForm() {
   const submitting = ref(false);
   const models = ref<EquipmentModel[]>([]);
   const searching = ref(false);
+  /** Set once the ticket exists: sending again only finishes its photos. */
+  const created = ref<Ticket | null>(null);
   let searchController: AbortController | null = null;
 
   async function searchModels(q: string): Promise<void> {
@@ -73,10 +83,21 @@ export function useTicketForm() {
     }
   }
 
-  /** Create the ticket, then upload the photos; null when the form has errors. */
-  async function submit(
-    photos: readonly File[] = [],
-  ): Promise<{ ticket: Ticket; photosFailed: boolean } | null> {
+  /** Upload the photos and send them as the ticket's first message; false when some did not go. */
+  async function sendPhotos(ticket: Ticket, photos: FormPhotos): Promise<boolean> {
+    if (photos.items.value.length === 0) return true;
+    if (!(await photos.uploadAll(ticket.id))) return false;
+    try {
+      const attachmentIds = photos.attachments.value.map((a) => a.id);
+      await ticketsApi.sendMessage(ticket.id, { body: '', clientId: newClientId(), attachmentIds });
+      return true;
+    } catch {
+      return false;
+    }
+  }
+
+  /** Create the ticket (once), then send the photos; null when the form has errors. */
+  async function submit(photos?: FormPhotos): Promise<{ ticket: Ticket; photosFailed: boolean } | null> {
     errors.clear();
     const draft = toDraft(values);
     if ('missing' in draft) {
@@ -85,15 +106,9 @@ export function useTicketForm() {
     }
     submitting.value = true;
     try {
-      const { ticket } = await ticketsApi.create(draft);
-      let photosFailed = false;
-      if (photos.length > 0) {
-        try {
-          await ticketsApi.upload(ticket.id, photos);
-        } catch {
-          photosFailed = true;
-        }
-      }
+      created.value ??= (await ticketsApi.create(draft)).ticket;
+      const ticket = created.value;
+      const photosFailed = photos ? !(await sendPhotos(ticket, photos)) : false;
       return { ticket, photosFailed };
     } catch (error) {
       errors.fromError(error);
@@ -107,5 +122,5 @@ export function useTicketForm() {
     }
   }
 
-  return { values, errors, submitting, models, searching, searchModels, submit };
+  return { values, errors, submitting, created, models, searching, searchModels, submit };
 }
