@@ -29,7 +29,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'api',
-          include: ['tests/api/**/*.test.ts', 'tests/realtime/**/*.test.ts'],
+          include: ['tests/api/**/*.test.ts', 'tests/realtime/**/*.test.ts', 'tests/search/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/support/global-setup.ts'],
           testTimeout: 20_000,

@@ -3,6 +3,7 @@ import { createDb } from '../src/db/client';
 import { seedDemo } from '../src/db/seed/demo';
 import { seedEquipment, seedTickets } from '../src/db/seed/tickets';
 import { DiskStorage } from '../src/features/attachments/storage';
+import { runKbImport } from './kb-import';
 
 const url = process.env.DATABASE_URL;
 if (!url) {
@@ -16,8 +17,11 @@ async function main() {
   const { created } = await seedDemo(handle.db);
   await seedEquipment(handle.db);
   const tickets = await seedTickets(handle.db, storage);
+  const imported = await runKbImport(url!);
   console.log(
-    created || tickets ? `demo seeded: ${created} people, ${tickets} tickets added` : 'demo already seeded',
+    created || tickets || imported
+      ? `demo seeded: ${created} people, ${tickets} tickets, ${imported} articles added`
+      : 'demo already seeded',
   );
 }
 

@@ -23,6 +23,8 @@ import { equipmentRouter } from './features/equipment/index';
 import { snippetsRouter } from './features/snippets/index';
 import { deskRouter } from './features/desk/index';
 import { checksRouter } from './features/checks/index';
+import { articlesRouter } from './features/articles/index';
+import { searchRouter } from './features/search/index';
 
 export interface CreatedApp {
   app: Express;
@@ -90,6 +92,8 @@ export function createApp(ctx: AppContext): CreatedApp {
   api.use('/snippets', snippetsRouter(ctx));
   api.use('/desk', deskRouter(ctx));
   api.use('/checks', checksRouter(ctx));
+  api.use('/articles', articlesRouter(ctx));
+  api.use('/search', searchRouter(ctx));
   api.use((req) => {
     throw new AppError('not_found', `No such API route: ${req.method} ${req.baseUrl}${req.path}`, 404);
   });

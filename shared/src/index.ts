@@ -7,3 +7,4 @@ export * from './schemas/tickets';
 export * from './schemas/desk';
 export * from './schemas/equipmentSpec';
 export * from './schemas/readings';
+export * from './schemas/articles';

@@ -41,6 +41,17 @@ describe('policy matrix', () => {
     });
   }
 
+  it('When an article is published, then a specialist other than the author or any admin may, its author-specialist may not', () => {
+    const author = { ...specialist, id: 7 };
+    expect(can(specialist, 'article.publish', { authorId: 7 })).toBe(true);
+    expect(can(author, 'article.publish', { authorId: 7 })).toBe(false);
+    expect(can({ ...admin, id: 7 }, 'article.publish', { authorId: 7 })).toBe(true);
+    expect(can(tech, 'article.publish', { authorId: 99 })).toBe(false);
+    expect(can(tech, 'article.edit', { authorId: tech.id })).toBe(true);
+    expect(can(tech, 'article.edit', { authorId: 99 })).toBe(false);
+    expect(can(contractor, 'article.write')).toBe(false);
+  });
+
   it('When nobody is signed in, then nothing is allowed', () => {
     expect(can(undefined, 'home.view')).toBe(false);
     expect(() => authorize(null, 'home.view')).toThrowError(expect.objectContaining({ status: 401 }));

@@ -25,9 +25,15 @@ export type Action =
   | 'snippet.edit'
   | 'desk.view'
   | 'check.run'
-  | 'equipment.edit';
+  | 'equipment.edit'
+  | 'article.write'
+  | 'article.edit'
+  | 'article.publish'
+  | 'article.retire'
+  | 'search.insights';
 
 export interface Resource {
+  authorId?: number | null;
   accountId?: number | null;
   branchId?: number | null;
   assigneeId?: number | null;
@@ -75,6 +81,15 @@ const RULES: Record<Action, Rule> = {
     (r.ownerId != null
       ? r.ownerId === u.id
       : r.createdById === u.id || u.role === 'specialist' || u.role === 'admin'),
+  // Techs write drafts; specialists and admins too.
+  'article.write': staffOnly,
+  // An article is changed by its author or by a specialist or admin.
+  'article.edit': (u, r) =>
+    isStaff(u) && (r.authorId === u.id || u.role === 'specialist' || u.role === 'admin'),
+  // Publishing needs a specialist or admin other than the author; an admin may publish their own.
+  'article.publish': (u, r) => u.role === 'admin' || (u.role === 'specialist' && r.authorId !== u.id),
+  'article.retire': (u) => u.role === 'specialist' || u.role === 'admin',
+  'search.insights': (u) => u.role === 'specialist' || u.role === 'admin',
   // A contractor sees their own account only; staff see every account (they serve them all).
   'account.view': (u, r) => (u.role === 'contractor' ? u.accountId === r.accountId : isStaff(u)),
   // Admins see every branch; other staff their own; contractors none directly.

@@ -3,3 +3,4 @@ export * from './accounts';
 export * from './users';
 export * from './system';
 export * from './tickets';
+export * from './articles';

@@ -1,0 +1,2 @@
+export { articlesRouter } from './articles.routes';
+export { createArticle } from './articles.service';

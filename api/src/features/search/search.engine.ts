@@ -1,0 +1,24 @@
+import type { SearchHit, SearchQuery } from '../../../../shared/src/index';
+
+/** Who is searching: the audience filter happens inside the engine's query, never afterwards. */
+export interface SearchReader {
+  id: number;
+  role: string;
+}
+
+export interface EngineResult {
+  hits: SearchHit[];
+  total: number;
+  facets: { kind: Record<string, number> };
+}
+
+/** One interface, two engines: PostgreSQL (embedded, tests) and Meilisearch (production). */
+export interface SearchEngine {
+  readonly name: 'postgres' | 'meilisearch';
+  search(reader: SearchReader, q: SearchQuery): Promise<EngineResult>;
+  suggest(
+    reader: SearchReader,
+    q: string,
+    limit: number,
+  ): Promise<{ id: number; slug: string; title: string }[]>;
+}

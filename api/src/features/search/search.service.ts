@@ -1,0 +1,76 @@
+import { and, eq, sql } from 'drizzle-orm';
+import type { AppContext } from '../../context';
+import { searchQueries } from '../../db/schema/index';
+import type { SearchQuery, SearchResponse, SessionUser } from '../../../../shared/src/index';
+import { AppError } from '../../lib/errors';
+import { authorize } from '../../lib/policies';
+import { PostgresSearch } from './search.postgres';
+import type { SearchEngine } from './search.engine';
+
+const engines = new WeakMap<AppContext, SearchEngine>();
+/** The engine configured for this server (PostgreSQL is the embedded default). */
+export function engineOf(ctx: AppContext): SearchEngine {
+  let engine = engines.get(ctx);
+  if (!engine) engines.set(ctx, (engine = new PostgresSearch(ctx.db)));
+  return engine;
+}
+
+/** Runs a search and logs it (who, what, how many hits) so specialists can see what is missing. */
+export async function search(ctx: AppContext, user: SessionUser, q: SearchQuery): Promise<SearchResponse> {
+  const started = performance.now();
+  const engine = engineOf(ctx);
+  const result = q.q ? await engine.search(user, q) : { hits: [], total: 0, facets: { kind: {} } };
+  let queryId: number | null = null;
+  if (q.q && q.offset === 0) {
+    const [row] = await ctx.db
+      .insert(searchQueries)
+      .values({
+        userId: user.id,
+        text: q.q.slice(0, 200),
+        filters: { kind: q.kind, equipmentType: q.equipmentType, brand: q.brand, fuel: q.fuel },
+        context: q.context,
+        hits: result.total,
+      })
+      .returning({ id: searchQueries.id });
+    queryId = row!.id;
+  }
+  return {
+    ...result,
+    engine: engine.name,
+    tookMs: Math.round((performance.now() - started) * 10) / 10,
+    queryId,
+  };
+}
+
+export async function suggest(ctx: AppContext, user: SessionUser, q: string) {
+  return q.trim().length < 2 ? [] : engineOf(ctx).suggest(user, q.trim(), 8);
+}
+
+/** The reader opened a result; from the new-ticket form, "this solved it" records a deflection. */
+export async function recordOutcome(
+  ctx: AppContext,
+  user: SessionUser,
+  queryId: number,
+  input: { articleId: number; deflected: boolean },
+) {
+  const updated = await ctx.db
+    .update(searchQueries)
+    .set({ clickedArticleId: input.articleId, deflected: input.deflected })
+    .where(and(eq(searchQueries.id, queryId), eq(searchQueries.userId, user.id)))
+    .returning({ id: searchQueries.id });
+  if (updated.length === 0) throw AppError.notFound('Search');
+}
+
+/** Searches that found nothing, grouped by wording, most frequent then newest first. */
+export async function searchesWithoutResults(ctx: AppContext, user: SessionUser, days: number) {
+  authorize(user, 'search.insights');
+  const result = await ctx.db.execute<{ text: string; times: number; last: string }>(sql`
+    select lower(trim(text)) as text, count(*)::int as times,
+           to_char(max(created_at) at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') as last
+      from search_queries
+     where hits = 0 and created_at > now() - make_interval(days => ${days})
+     group by lower(trim(text))
+     order by times desc, max(created_at) desc
+     limit 100`);
+  return result.rows;
+}
