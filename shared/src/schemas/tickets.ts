@@ -198,6 +198,8 @@ export const snippetSchema = z.object({
   body: z.string(),
   shared: z.boolean(),
   ownerId: z.number().int().nullable(),
+  /** Whether the reader may change or delete it (the policy's answer, so screens need not guess). */
+  canEdit: z.boolean(),
   updatedAt: z.string(),
 });
 export type Snippet = z.infer<typeof snippetSchema>;

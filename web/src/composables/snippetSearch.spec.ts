@@ -8,6 +8,7 @@ const snippet = (id: number, title: string, body: string, ownerId: number | null
   body,
   shared: ownerId === null,
   ownerId,
+  canEdit: ownerId === 7,
   updatedAt: '2026-03-04T15:00:00Z',
 });
 const ME = 7;

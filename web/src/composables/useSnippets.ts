@@ -23,11 +23,8 @@ export function useSnippets() {
   });
   const remove = useMutation({ mutationFn: (id: number) => snippetsApi.remove(id), onSuccess: refresh });
 
-  /** Personal snippets are their owner's; shared ones, as the server has it, also specialists' and admins'. */
-  function canEdit(snippet: Snippet): boolean {
-    if (!snippet.shared) return snippet.ownerId === userId.value;
-    return session.hasRole('specialist', 'admin');
-  }
+  /** The server says who may change each snippet. */
+  const canEdit = (snippet: Snippet): boolean => snippet.canEdit;
 
   return {
     search,

@@ -1,14 +1,18 @@
 import type { AppContext } from '../../context';
 import type { SessionUser, Snippet } from '../../../../shared/src/index';
 import { AppError } from '../../lib/errors';
-import { authorize } from '../../lib/policies';
+import { authorize, can } from '../../lib/policies';
 import * as repo from './snippets.repository';
 
-const toSnippet = ({ createdById: _c, updatedAt, ...r }: repo.SnippetRow): Snippet => ({
-  ...r,
-  shared: r.ownerId === null,
-  updatedAt: updatedAt.toISOString(),
-});
+const toSnippet = (user: SessionUser, row: repo.SnippetRow): Snippet => {
+  const { createdById: _c, updatedAt, ...r } = row;
+  return {
+    ...r,
+    shared: r.ownerId === null,
+    canEdit: can(user, 'snippet.edit', row),
+    updatedAt: updatedAt.toISOString(),
+  };
+};
 
 /** Loads a snippet the user may see and checks they may change it; others' personal ones are 404. */
 async function loadEditable(ctx: AppContext, user: SessionUser, id: number) {
@@ -20,7 +24,7 @@ async function loadEditable(ctx: AppContext, user: SessionUser, id: number) {
 
 export async function listSnippets(ctx: AppContext, user: SessionUser) {
   authorize(user, 'snippet.use');
-  return (await repo.listVisible(ctx.db, user.id)).map(toSnippet);
+  return (await repo.listVisible(ctx.db, user.id)).map((row) => toSnippet(user, row));
 }
 
 export async function createSnippet(
@@ -35,7 +39,7 @@ export async function createSnippet(
     ownerId: input.shared ? null : user.id,
     createdById: user.id,
   });
-  return toSnippet(row);
+  return toSnippet(user, row);
 }
 
 export async function updateSnippet(
@@ -48,7 +52,7 @@ export async function updateSnippet(
   const row = await loadEditable(ctx, user, id);
   const { shared, ...rest } = input;
   const patch = { ...rest, ...(shared !== undefined ? { ownerId: shared ? null : user.id } : {}) };
-  return toSnippet(await repo.updateSnippet(ctx.db, row.id, patch));
+  return toSnippet(user, await repo.updateSnippet(ctx.db, row.id, patch));
 }
 
 export async function deleteSnippet(ctx: AppContext, user: SessionUser, id: number) {
