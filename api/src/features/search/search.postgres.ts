@@ -22,9 +22,13 @@ export class PostgresSearch implements SearchEngine {
   readonly name = 'postgres' as const;
   constructor(private readonly db: Db) {}
 
+  // Read again at most every 30 s: a specialist's edit shows up within half a minute on every instance.
+  private cached: { at: number; groups: string[][] } | undefined;
   private async synonyms(): Promise<string[][]> {
+    if (this.cached && Date.now() - this.cached.at < 30_000) return this.cached.groups;
     const { rows } = await this.db.$client.query<{ terms: string[] }>('select terms from search_synonyms');
-    return rows.map((r) => r.terms);
+    this.cached = { at: Date.now(), groups: rows.map((r) => r.terms) };
+    return this.cached.groups;
   }
 
   /** Adds the nearest known word to each single-word group that the articles never use (typos). */
@@ -62,9 +66,17 @@ export class PostgresSearch implements SearchEngine {
       filters.push(sql`exists (select 1 from article_models am join equipment_models m on m.id = am.equipment_model_id
         where am.article_id = a.id and ${sql.join(conds, sql` and `)})`);
     }
+    // Articles matching every idea come first; only when there are too few of them does the
+    // search widen to articles matching some ideas. Ranking then touches few rows.
+    const strict = await this.run(all, all, filters, q);
+    if (strict.total >= q.offset + q.limit || groups.length === 1) return strict;
+    const wide = await this.run(any, all, filters, q);
+    return wide.total > strict.total ? wide : strict;
+  }
+
+  /** One pass: the matches, their rank, the page with snippets, the total and the facets. */
+  private async run(match: SQL, all: SQL, filters: SQL[], q: SearchQuery): Promise<EngineResult> {
     const base = sql.join(filters, sql` and `);
-    const kindFilter = q.kind ? sql` and a.kind = ${q.kind}` : sql``;
-    // Every idea matched ranks first; articles matching only some ideas follow, by weight.
     const result = await this.db.execute<{
       id: number;
       slug: string;
@@ -75,33 +87,35 @@ export class PostgresSearch implements SearchEngine {
       score: number;
       snippet: string;
       total: number;
+      facets: Record<string, number>;
     }>(sql`
-      with q as (select ${all} as all_q, ${any} as any_q),
+      with q as (select ${match} as match_q, ${all} as all_q),
       matched as (
-        select a.id, a.kind,
-               (case when a.search_vector @@ q.all_q then 1 else 0 end)
-               + ts_rank_cd(a.search_vector, q.any_q, 1) as score
+        select a.id, a.kind, a.updated_at,
+               (case when a.search_vector @@ q.all_q then 1 else 0 end) + ts_rank_cd(a.search_vector, q.match_q, 1) as score
           from articles a, q
-         where ${base} and a.search_vector @@ q.any_q
+         where ${base} and a.search_vector @@ q.match_q
+      ),
+      facets as (select coalesce(jsonb_object_agg(kind, n), '{}') as f from (select kind, count(*)::int as n from matched group by kind) k),
+      page as (
+        select m.* from matched m ${q.kind ? sql`where m.kind = ${q.kind}` : sql``}
+         order by m.score desc, m.updated_at desc limit ${q.limit} offset ${q.offset}
       )
-      select a.id, a.slug, a.title, a.summary, a.kind, a.audience, round(m.score::numeric, 4)::float8 as score,
-             ts_headline('english', a.body, q.any_q, 'MaxFragments=1, MaxWords=28, MinWords=10, StartSel=⟦, StopSel=⟧') as snippet,
-             count(*) over ()::int as total
-        from matched m join articles a on a.id = m.id, q
-       where true ${kindFilter}
-       order by m.score desc, a.updated_at desc
-       limit ${q.limit} offset ${q.offset}`);
-    const facets = await this.db.execute<{ kind: string; n: number }>(sql`
-      select a.kind, count(*)::int as n from articles a
-       where ${base} and a.search_vector @@ (${any}) group by a.kind`);
+      select a.id, a.slug, a.title, a.summary, a.kind, a.audience, round(p.score::numeric, 4)::float8 as score,
+             ts_headline('english', a.body, q.match_q, 'MaxFragments=1, MaxWords=28, MinWords=10, StartSel=⟦, StopSel=⟧') as snippet,
+             (select count(*)::int from matched m ${q.kind ? sql`where m.kind = ${q.kind}` : sql``}) as total,
+             (select f from facets) as facets
+        from page p join articles a on a.id = p.id, q
+       order by p.score desc, p.updated_at desc`);
+    const first = result.rows[0];
     return {
-      hits: result.rows.map(({ total: _t, ...h }) => ({
+      hits: result.rows.map(({ total: _t, facets: _f, ...h }) => ({
         ...h,
         kind: h.kind as never,
         audience: h.audience as never,
       })),
-      total: result.rows[0]?.total ?? 0,
-      facets: { kind: Object.fromEntries(facets.rows.map((f) => [f.kind, f.n])) },
+      total: first?.total ?? 0,
+      facets: { kind: first?.facets ?? {} },
     };
   }
 
@@ -109,7 +123,7 @@ export class PostgresSearch implements SearchEngine {
     const result = await this.db.execute<{ id: number; slug: string; title: string }>(sql`
       select a.id, a.slug, a.title from articles a
        where ${audienceFilter(reader)}
-         and (a.title ilike ${`%${text.replace(/[\\%_]/g, '\\$&')}%`} or word_similarity(${text}, a.title) > 0.35)
+         and (a.title ilike ${`%${text.replace(/[\\%_]/g, '\\$&')}%`} or ${text} <% a.title)
        order by word_similarity(${text}, a.title) desc, a.title
        limit ${limit}`);
     return result.rows;
