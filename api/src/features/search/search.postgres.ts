@@ -4,6 +4,9 @@ import type { SearchQuery } from '../../../../shared/src/index';
 import { groupQuery, type QueryGroup } from './query';
 import type { EngineResult, SearchEngine, SearchReader } from './search.engine';
 
+/** The most rows one pass ranks; totals and facets count up to it (shown as "1,000+" by screens). */
+export const CANDIDATES = 1000;
+
 /** What the reader may find, inside the query: contractors only published contractor articles. */
 function audienceFilter(reader: SearchReader): SQL {
   return reader.role === 'contractor'
@@ -90,11 +93,18 @@ export class PostgresSearch implements SearchEngine {
       facets: Record<string, number>;
     }>(sql`
       with q as (select ${match} as match_q, ${all} as all_q),
-      matched as (
-        select a.id, a.kind, a.updated_at,
-               (case when a.search_vector @@ q.all_q then 1 else 0 end) + ts_rank_cd(a.search_vector, q.match_q, 1) as score
+      candidates as (
+        -- Ranking reads every candidate's vector: past CANDIDATES rows the order is already
+        -- settled by the strict pass above, so the widened pass ranks a bounded set.
+        select a.id, a.kind, a.updated_at, a.search_vector
           from articles a, q
          where ${base} and a.search_vector @@ q.match_q
+         limit ${CANDIDATES}
+      ),
+      matched as (
+        select c.id, c.kind, c.updated_at,
+               (case when c.search_vector @@ q.all_q then 1 else 0 end) + ts_rank_cd(c.search_vector, q.match_q, 1) as score
+          from candidates c, q
       ),
       facets as (select coalesce(jsonb_object_agg(kind, n), '{}') as f from (select kind, count(*)::int as n from matched group by kind) k),
       page as (
