@@ -195,4 +195,20 @@ describe('search', () => {
       ).status,
     ).toBe(404);
   });
+
+  it('When a title is typed in part, or with a typo, then suggest offers it; a staff article is never offered to a contractor', async () => {
+    const tag = unique('qv');
+    const article = await publish(draft({ title: `Inducer bearing noise ${tag}` }));
+    const staff = await publish(draft({ title: `Inducer bearing claims ${tag}`, audience: 'staff' }));
+    const contractor = await signedInClient(server, await makeUser());
+    const partial = await contractor
+      .get(`/api/search/suggest?q=${encodeURIComponent(`bearing noise ${tag}`)}`)
+      .expect(200);
+    expect(partial.body.items.map((i: { id: number }) => i.id)).toContain(article.id);
+    const typo = await contractor
+      .get(`/api/search/suggest?q=${encodeURIComponent(`inducr bearing ${tag}`)}`)
+      .expect(200);
+    expect(typo.body.items.map((i: { id: number }) => i.id)).toContain(article.id);
+    expect(typo.body.items.map((i: { id: number }) => i.id)).not.toContain(staff.id);
+  });
 });

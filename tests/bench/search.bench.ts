@@ -57,7 +57,9 @@ async function fillTo(size: number, authorId: number) {
   const { db } = testDb();
   const { rows } = await db.execute<{ n: number }>(sql`select count(*)::int as n from articles`);
   const have = rows[0]!.n;
-  if (have >= size) return;
+  if (have > size)
+    throw new Error(`the database already holds ${have} articles: give the bench an empty database`);
+  if (have === size) return;
   const symptoms = `{${SYMPTOMS.map((s) => `"${s}"`).join(',')}}`;
   const parts = `{${PARTS.map((s) => `"${s}"`).join(',')}}`;
   const fuels = `{${FUELS.map((s) => `"${s}"`).join(',')}}`;

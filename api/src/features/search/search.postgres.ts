@@ -130,12 +130,21 @@ export class PostgresSearch implements SearchEngine {
   }
 
   async suggest(reader: SearchReader, text: string, limit: number) {
-    const result = await this.db.execute<{ id: number; slug: string; title: string }>(sql`
-      select a.id, a.slug, a.title from articles a
-       where ${audienceFilter(reader)}
-         and (a.title ilike ${`%${text.replace(/[\\%_]/g, '\\$&')}%`} or ${text} <% a.title)
+    const like = `%${text.replace(/[\\%_]/g, '\\$&')}%`;
+    // Two small candidate sets from the trigram index (contains, or close to), then the best few.
+    // `<%` uses the index at pg_trgm's word-similarity threshold; 0.45 lets one slip per word through.
+    const result = await this.db.transaction(async (tx) => {
+      await tx.execute(sql`select set_config('pg_trgm.word_similarity_threshold', '0.45', true)`);
+      return tx.execute<{ id: number; slug: string; title: string }>(sql`
+      with c as (
+        (select a.id from articles a where ${audienceFilter(reader)} and a.title ilike ${like} limit 50)
+        union
+        (select a.id from articles a where ${audienceFilter(reader)} and ${text} <% a.title limit 50)
+      )
+      select a.id, a.slug, a.title from c join articles a on a.id = c.id
        order by word_similarity(${text}, a.title) desc, a.title
        limit ${limit}`);
+    });
     return result.rows;
   }
 }
