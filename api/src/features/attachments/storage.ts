@@ -20,7 +20,7 @@ export class DiskStorage implements FileStorage {
     if (!p.startsWith(this.root + sep)) throw new Error('storage key escapes the storage folder');
     return p;
   }
-  async put(key: string, body: Buffer) {
+  async put(key: string, body: Buffer, _contentType?: string) {
     const p = this.path(key);
     await mkdir(dirname(p), { recursive: true });
     // Write then rename, so a reader never sees half a file.
