@@ -67,7 +67,10 @@ function recordingClient() {
         if (request.method === 'GET') {
           const found = objects.get(request.path);
           return found
-            ? ok(200, Buffer.from(found), { 'content-type': 'image/jpeg', 'content-length': String(found.length) })
+            ? ok(200, Buffer.from(found), {
+                'content-type': 'image/jpeg',
+                'content-length': String(found.length),
+              })
             : ok(404, Buffer.from('<Error><Code>NoSuchKey</Code><Message>missing</Message></Error>'), {
                 'content-type': 'application/xml',
               });
