@@ -20,6 +20,19 @@ export interface RouteNamedMap {
   'admin-users': Info<'admin-users', '/admin/users'>;
   'admin-accounts': Info<'admin-accounts', '/admin/accounts'>;
   'admin-branches': Info<'admin-branches', '/admin/branches'>;
+  checks: Info<'checks', '/checks'>;
+  equipment: Info<'equipment', '/equipment'>;
+  'equipment-spec': RouteRecordInfo<
+    'equipment-spec',
+    '/equipment/:id/spec',
+    { id: string | number },
+    { id: string }
+  >;
+  kb: Info<'kb', '/kb'>;
+  'kb-new': Info<'kb-new', '/kb/new'>;
+  'kb-missed': Info<'kb-missed', '/kb/missed'>;
+  'kb-article': RouteRecordInfo<'kb-article', '/kb/:slug', { slug: string }, { slug: string }>;
+  'kb-edit': RouteRecordInfo<'kb-edit', '/kb/:slug/edit', { slug: string }, { slug: string }>;
   'not-found': RouteRecordInfo<
     'not-found',
     '/:pathMatch(.*)*',
@@ -44,6 +57,12 @@ declare module 'vue-router' {
     touch?: boolean;
   }
 }
+
+/** Who may edit equipment spec tables (the API's equipment.edit policy). */
+const SPEC_EDITOR_ROLES: readonly Role[] = ['specialist', 'admin'];
+
+/** Who reviews knowledge-base articles and reads what searches missed. */
+const KB_REVIEWER_ROLES: readonly Role[] = ['specialist', 'admin'];
 
 export type HomeRoute = { name: 'contractor-home' } | { name: 'staff-home' };
 
@@ -119,6 +138,54 @@ export const routes: RouteRecordRaw[] = [
     name: 'admin-branches',
     component: () => import('@/views/AdminBranchesView.vue'),
     meta: { roles: ['admin'], title: 'adminBranches.title' },
+  },
+  {
+    path: '/checks',
+    name: 'checks',
+    component: () => import('@/views/ChecksView.vue'),
+    meta: { roles: ALL_ROLES, title: 'checks.title', touch: true },
+  },
+  {
+    path: '/equipment',
+    name: 'equipment',
+    component: () => import('@/views/EquipmentListView.vue'),
+    meta: { roles: SPEC_EDITOR_ROLES, title: 'equipment.list.title' },
+  },
+  {
+    path: '/equipment/:id(\\d+)/spec',
+    name: 'equipment-spec',
+    component: () => import('@/views/EquipmentSpecView.vue'),
+    meta: { roles: SPEC_EDITOR_ROLES, title: 'equipment.spec.title' },
+  },
+  {
+    path: '/kb',
+    name: 'kb',
+    component: () => import('@/views/KnowledgeBaseView.vue'),
+    meta: { roles: ALL_ROLES, title: 'kb.title', touch: true },
+  },
+  {
+    path: '/kb/new',
+    name: 'kb-new',
+    component: () => import('@/views/ArticleEditorView.vue'),
+    meta: { roles: STAFF_ROLES, title: 'kb.editor.newTitle' },
+  },
+  {
+    path: '/kb/missed',
+    name: 'kb-missed',
+    component: () => import('@/views/KbMissedSearchesView.vue'),
+    meta: { roles: KB_REVIEWER_ROLES, title: 'kb.missed.title' },
+  },
+  {
+    path: '/kb/:slug',
+    name: 'kb-article',
+    component: () => import('@/views/ArticleView.vue'),
+    meta: { roles: ALL_ROLES, title: 'kb.article.title', touch: true },
+  },
+  {
+    path: '/kb/:slug/edit',
+    name: 'kb-edit',
+    component: () => import('@/views/ArticleEditorView.vue'),
+    meta: { roles: STAFF_ROLES, title: 'kb.editor.editTitle' },
   },
   {
     path: '/:pathMatch(.*)*',
