@@ -35,8 +35,13 @@ export const articleUpdateSchema = articleCreateSchema
   .refine((v) => Object.keys(v).some((k) => k !== 'note'), { message: 'Nothing to change' });
 export type ArticleUpdate = z.infer<typeof articleUpdateSchema>;
 
-export const sendBackSchema = z.object({ note: z.string().trim().min(3, 'Say what needs to change').max(2000) });
-export const feedbackSchema = z.object({ helped: z.boolean(), comment: z.string().trim().max(2000).optional() });
+export const sendBackSchema = z.object({
+  note: z.string().trim().min(3, 'Say what needs to change').max(2000),
+});
+export const feedbackSchema = z.object({
+  helped: z.boolean(),
+  comment: z.string().trim().max(2000).optional(),
+});
 
 export const articleListQuerySchema = listQuerySchema.extend({
   kind: z.enum(ARTICLE_KINDS).optional(),
