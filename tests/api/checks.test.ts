@@ -89,4 +89,46 @@ describe('check routes', () => {
     expect(typical.body.result.specSource).toBe('typical');
     expect(typical.body.result.items[0].verdict).toBe('ok');
   });
+
+  it('When gas pressure is checked against an article, then its spec table gives the targets; an article without one is 400', async () => {
+    const specialist = await signedInClient(server, await makeUser({ role: 'specialist' }));
+    const reviewer = await signedInClient(server, await makeUser({ role: 'specialist' }));
+    const body = [
+      '::: spec gas-pressure',
+      '| fuel | stage | target in. w.c. | tolerance |',
+      '| --- | --- | --- | --- |',
+      '| natural-gas | high | 3.2 | 0.2 |',
+      '| propane | high | 10 | 0.5 |',
+      ':::',
+    ].join('\n');
+    const created = await specialist.post('/api/articles', {
+      title: 'Setting the high fire on a test unit',
+      summary: 'Targets for the high-fire manifold pressure by fuel.',
+      body,
+      kind: 'procedure',
+      audience: 'contractor',
+    });
+    await reviewer.post(`/api/articles/${created.body.article.id}/publish`);
+    const res = await client.post('/api/checks/gas-pressure', {
+      fuel: 'natural-gas',
+      articleId: created.body.article.id,
+      manifold: [{ stage: 'high', valueInWc: 3.5 }],
+    });
+    expect(res.body.result.specSource).toBe('article');
+    expect(res.body.result.items[0]).toMatchObject({ verdict: 'high', targetInWc: 3.2, adjust: 'lower' });
+    const plain = await specialist.post('/api/articles', {
+      ...created.body.article,
+      title: 'No table here at all',
+      body: 'Just words.',
+      equipmentModelIds: [],
+    });
+    await reviewer.post(`/api/articles/${plain.body.article.id}/publish`);
+    const none = await client.post('/api/checks/gas-pressure', {
+      fuel: 'natural-gas',
+      articleId: plain.body.article.id,
+      manifold: [{ stage: 'high', valueInWc: 3.5 }],
+    });
+    expect(none.status).toBe(400);
+    expect(none.body.error.fields).toHaveProperty('articleId');
+  });
 });

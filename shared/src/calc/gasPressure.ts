@@ -35,6 +35,8 @@ export const gasPressureInputSchema = z
   .object({
     fuel: z.enum(['natural-gas', 'propane']),
     equipmentModelId: z.number().int().positive().optional(),
+    /** A knowledge-base article whose `::: spec gas-pressure` table gives the targets. */
+    articleId: z.number().int().positive().optional(),
     spec: gasPressureSpecSchema.optional(),
     inletStaticInWc: inWc('Inlet static').optional(),
     inletUnderFireInWc: inWc('Inlet under fire').optional(),
@@ -79,6 +81,8 @@ export const TYPICAL_SPEC: Record<'natural-gas' | 'propane', GasPressureSpec> = 
   },
 };
 
+export type SpecSource = 'body' | 'model' | 'article' | 'typical';
+
 export interface GasPressureItem {
   name: 'inlet-static' | 'inlet-under-fire' | `manifold-${Stage}` | 'inlet-drop';
   valueInWc: number;
@@ -99,8 +103,8 @@ const verdictOf = (v: number, min: number, max: number) => (v < min ? 'low' : v 
 export function checkGasPressure(
   input: GasPressureInput,
   spec: GasPressureSpec,
-  specSource: 'body' | 'model' | 'typical',
-): { items: GasPressureItem[]; specSource: 'body' | 'model' | 'typical' } & Sourced {
+  specSource: SpecSource,
+): { items: GasPressureItem[]; specSource: SpecSource } & Sourced {
   const items: GasPressureItem[] = [];
   const inlet = (name: 'inlet-static' | 'inlet-under-fire', value: number) => {
     const verdict = verdictOf(value, spec.inletMinInWc, spec.inletMaxInWc);
@@ -173,6 +177,7 @@ export function checkGasPressure(
   const sourceOf = {
     body: 'The spec table entered with the readings (from the unit’s instructions or an article).',
     model: 'The unit’s spec table in the equipment catalogue.',
+    article: 'The spec table of the knowledge-base article chosen.',
     typical:
       'No spec for this unit: judged against common practice (natural gas inlet 5–10.5 in. w.c., manifold 3.5 ± 0.3 at high fire; propane inlet 11–13, manifold 10 ± 0.5). Check the rating plate.',
   } as const;

@@ -11,7 +11,7 @@ export function checksRouter(ctx: AppContext): Router {
   /** POST /api/checks/gas-pressure — signed in: readings against the unit's or an article's spec. */
   router.post('/gas-pressure', validate('body', gasPressureInputSchema), async (req, res) => {
     authorize(req.user, 'check.run');
-    res.json({ result: await runGasPressure(ctx, parsed(res, 'body', gasPressureInputSchema)) });
+    res.json({ result: await runGasPressure(ctx, req.user!, parsed(res, 'body', gasPressureInputSchema)) });
   });
 
   /** POST /api/checks/<kind> — signed in: one of the trade's calculations (see shared/src/calc). */
