@@ -81,7 +81,8 @@ describe('ticket readings', () => {
       await desk.page.getByTestId('reading-post').click();
       await card(desk.page, 'ok').waitFor();
       await card(page, 'ok').waitFor();
-      expect(await page.getByTestId('reading-row').count()).toBe(2);
+      // The list refreshes when the reading's card arrives; give it a moment after the card shows.
+      await expect.poll(() => page.getByTestId('reading-row').count(), { timeout: 10_000 }).toBe(2);
     } finally {
       await phone.close();
       await desk.close();
