@@ -15,8 +15,17 @@ const envSchema = z.object({
   TRUST_PROXY: bool.default(false),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().min(1).max(65_535).default(1025),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  SMTP_SECURE: bool.default(false),
   MAIL_FROM: z.string().default('Lightoff desk <desk@harborvalley.example>'),
   MAIL_WEB_URL: z.string().url().optional(),
+  /** Where people reach the app: the base of every link in an e-mail. */
+  APP_URL: z.string().url().default('http://localhost:3000'),
+  /** Meilisearch: when set, search runs there (PostgreSQL stays the fallback). */
+  MEILI_URL: z.string().url().optional(),
+  MEILI_API_KEY: z.string().optional(),
+  MEILI_INDEX: z.string().default('articles'),
   UPLOAD_DIR: z.string().default('.data/uploads'),
   S3_BUCKET: z.string().optional(),
   S3_REGION: z.string().default('us-east-1'),

@@ -2,6 +2,7 @@ import type { Logger } from 'pino';
 import type { Config } from './config';
 import type { Db } from './db/client';
 import type { FileStorage } from './features/attachments/storage';
+import type { Jobs } from './lib/jobs';
 import type { ServerToClientEvents } from '../../shared/src/events';
 import type { Message } from '../../shared/src/schemas/tickets';
 
@@ -34,6 +35,8 @@ export interface AppContext {
   logger: Logger;
   realtime: Realtime;
   storage: FileStorage;
+  /** Background jobs kept in PostgreSQL (search sync, e-mail). */
+  jobs: Jobs;
 }
 
 export const noRealtime: Realtime = {

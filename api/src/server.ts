@@ -7,6 +7,8 @@ import { noRealtime, type AppContext } from './context';
 import { createDb, type DbHandle } from './db/client';
 import { createLogger } from './lib/logger';
 import { attachRealtime, type Io } from './realtime/io';
+import { createJobs } from './lib/jobs';
+import { registerWorkers } from './workers';
 import { DiskStorage, S3Storage, type FileStorage } from './features/attachments/storage';
 
 /** S3 when a bucket is configured, else a folder on local disk. */
@@ -36,17 +38,21 @@ export interface RunningServer {
 export async function startServer(config: Config, options: { logger?: Logger } = {}): Promise<RunningServer> {
   const logger = options.logger ?? createLogger(config);
   const dbHandle: DbHandle = createDb(config.DATABASE_URL);
+  const jobs = createJobs(config.DATABASE_URL, logger);
   const ctx: AppContext = {
     config,
     db: dbHandle.db,
     logger,
     realtime: noRealtime,
     storage: createStorage(config),
+    jobs,
   };
   const created = createApp(ctx);
   const http = createServer(created.app);
   const { io, realtime } = attachRealtime(ctx, http, created);
   ctx.realtime = realtime;
+  // Workers start in the background: a database that is down must not stop the server starting.
+  registerWorkers(ctx).catch((err: unknown) => logger.error({ err }, 'background workers did not start'));
 
   await new Promise<void>((resolve, reject) => {
     http.once('error', reject);
@@ -54,12 +60,18 @@ export async function startServer(config: Config, options: { logger?: Logger } =
   });
   const { port } = http.address() as AddressInfo;
   const url = `http://${config.HOST.includes(':') ? `[${config.HOST}]` : config.HOST}:${port}`;
-  return { url, port, ctx, io, http, stop: () => stopServer({ io, http, dbHandle }) };
+  return { url, port, ctx, io, http, stop: () => stopServer({ io, http, dbHandle, jobs }) };
 }
 
-async function stopServer(parts: { io: Io; http: HttpServer; dbHandle: DbHandle }): Promise<void> {
+async function stopServer(parts: {
+  io: Io;
+  http: HttpServer;
+  dbHandle: DbHandle;
+  jobs: AppContext['jobs'];
+}): Promise<void> {
   await new Promise<void>((resolve) => parts.io.close(() => resolve()));
   parts.http.closeAllConnections();
   await new Promise<void>((resolve) => parts.http.close(() => resolve()));
+  await parts.jobs.stop();
   await parts.dbHandle.close();
 }

@@ -25,6 +25,7 @@ function serverEnv({ port, databaseUrl, sessionSecret, mail, nodeEnv }) {
     SMTP_HOST: '127.0.0.1',
     SMTP_PORT: String(mail.smtpPort),
     MAIL_WEB_URL: mail.webUrl,
+    APP_URL: process.env.APP_URL ?? `http://localhost:${port}`,
   };
 }
 

@@ -137,3 +137,27 @@ export const searchSynonyms = pgTable('search_synonyms', {
 export const searchWords = pgTable('search_words', { word: text().primaryKey() }, (t) => [
   index('search_words_trgm').using('gin', sql`${t.word} gin_trgm_ops`),
 ]);
+
+/** Pictures in an article's body: re-encoded by sharp like ticket photos, served from storage. */
+export const articleImages = pgTable(
+  'article_images',
+  {
+    id: integer().primaryKey().generatedAlwaysAsIdentity(),
+    articleId: integer()
+      .notNull()
+      .references(() => articles.id, { onDelete: 'cascade' }),
+    uploadedById: integer()
+      .notNull()
+      .references(() => users.id),
+    storageKey: text().notNull().unique(),
+    thumbnailKey: text(),
+    fileName: text().notNull(),
+    contentType: text().notNull(),
+    bytes: integer().notNull(),
+    width: integer(),
+    height: integer(),
+    sha256: text().notNull(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('article_images_article_idx').on(t.articleId)],
+);

@@ -4,3 +4,4 @@ export * from './users';
 export * from './system';
 export * from './tickets';
 export * from './articles';
+export * from './tokens';

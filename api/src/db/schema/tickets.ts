@@ -106,6 +106,8 @@ export const ticketMessages = pgTable(
     clientId: text(),
     /** Structured content of an event message (a check result card). */
     data: jsonb().$type<Record<string, unknown>>(),
+    /** Marked by the desk as part of the answer, for the write-up into an article. */
+    partOfAnswer: boolean().notNull().default(false),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     deliveredAt: timestamp({ withTimezone: true }),
     readAt: timestamp({ withTimezone: true }),

@@ -17,6 +17,10 @@ export const users = pgTable(
     accountId: integer().references(() => contractorAccounts.id),
     isAccountOwner: boolean().notNull().default(false),
     lastSignInAt: timestamp({ withTimezone: true }),
+    /** Optional e-mails the user can turn off on their profile or with the link in the e-mail. */
+    mailTicketReceived: boolean().notNull().default(true),
+    mailReplies: boolean().notNull().default(true),
+    mailResolved: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
