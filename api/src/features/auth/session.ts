@@ -28,13 +28,41 @@ declare global {
   }
 }
 
-/** Sessions in PostgreSQL: idle timeout 30 min (rolling), HttpOnly, SameSite=Lax, Secure in production. */
+/** A session's expiry in the database is pushed forward at most this often. */
+export const TOUCH_EVERY_MS = 60 * 1000;
+
+/**
+ * Sessions in PostgreSQL: idle timeout 30 min (rolling), HttpOnly, SameSite=Lax, Secure in production.
+ * The cookie rolls on every request, but the row's expiry is written at most once a minute per
+ * session and process: a write (and its WAL flush) on every read request was the largest fixed cost
+ * of a signed-in request. A session therefore ends after 29–30 idle minutes.
+ */
 export function createSessionMiddleware(config: Config, pool: pg.Pool): RequestHandler {
   const PgStore = connectPgSimple(session);
+  class ThrottledPgStore extends PgStore {
+    private readonly touchedAt = new Map<string, number>();
+    override touch(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void) {
+      const now = Date.now();
+      const last = this.touchedAt.get(sid);
+      if (last !== undefined && now - last < TOUCH_EVERY_MS) {
+        fn?.();
+        return;
+      }
+      if (this.touchedAt.size > 10_000) {
+        for (const [key, at] of this.touchedAt) if (now - at >= TOUCH_EVERY_MS) this.touchedAt.delete(key);
+      }
+      this.touchedAt.set(sid, now);
+      super.touch(sid, sess, fn);
+    }
+    override destroy(sid: string, fn?: (err?: unknown) => void) {
+      this.touchedAt.delete(sid);
+      super.destroy(sid, fn);
+    }
+  }
   return session({
     name: SESSION_COOKIE,
     secret: config.SESSION_SECRET,
-    store: new PgStore({
+    store: new ThrottledPgStore({
       pool,
       tableName: 'session',
       createTableIfMissing: false,
