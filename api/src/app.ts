@@ -49,6 +49,7 @@ export function createApp(ctx: AppContext): CreatedApp {
         return id;
       },
       autoLogging: { ignore: (req) => req.url === '/api/health' },
+      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'info'),
     }),
   );
   app.use(

@@ -26,6 +26,8 @@ function serverEnv({ port, databaseUrl, sessionSecret, mail, nodeEnv }) {
     SMTP_PORT: String(mail.smtpPort),
     MAIL_WEB_URL: mail.webUrl,
     APP_URL: process.env.APP_URL ?? `http://localhost:${port}`,
+    // The terminal shows warnings and errors; LOG_LEVEL=info adds a line per request.
+    LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
   };
 }
 
