@@ -25,6 +25,8 @@ import { deskRouter } from './features/desk/index';
 import { checksRouter } from './features/checks/index';
 import { articlesRouter } from './features/articles/index';
 import { searchRouter } from './features/search/index';
+import { mailPreferencesRouter, unsubscribeRouter } from './features/mail/index';
+import { invitationsRouter } from './features/invitations/index';
 
 export interface CreatedApp {
   app: Express;
@@ -49,6 +51,16 @@ export function createApp(ctx: AppContext): CreatedApp {
         return id;
       },
       autoLogging: { ignore: (req) => req.url === '/api/health' },
+      // The secret of an e-mailed link (/join/<token>, /reset/<token>, ?token=) never reaches the log.
+      serializers: {
+        req: (req: { url?: string }) => {
+          if (req.url)
+            req.url = req.url
+              .replace(/^\/(join|reset)\/[^/?#]+/, '/$1/[redacted]')
+              .replace(/([?&]token=)[^&#]*/g, '$1[redacted]');
+          return req;
+        },
+      },
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'info'),
     }),
   );
@@ -83,6 +95,8 @@ export function createApp(ctx: AppContext): CreatedApp {
   api.use(express.json({ limit: '1mb' }));
   api.use(sessionMiddleware, pp.initialize(), pp.session(), absoluteTimeout);
   api.use(healthRouter(ctx));
+  // Reached from e-mails without a session; the signed token is the authority (see the router).
+  api.use('/mail', unsubscribeRouter(ctx));
   api.use(csrf.csrfSynchronisedProtection);
   api.use('/auth', authRouter(ctx, pp));
   api.use('/home', homeRouter(ctx));
@@ -95,6 +109,8 @@ export function createApp(ctx: AppContext): CreatedApp {
   api.use('/checks', checksRouter(ctx));
   api.use('/articles', articlesRouter(ctx));
   api.use('/search', searchRouter(ctx));
+  api.use('/me', mailPreferencesRouter(ctx));
+  api.use('/invitations', invitationsRouter(ctx));
   api.use((req) => {
     throw new AppError('not_found', `No such API route: ${req.method} ${req.baseUrl}${req.path}`, 404);
   });

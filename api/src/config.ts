@@ -22,6 +22,15 @@ const envSchema = z.object({
   MAIL_WEB_URL: z.string().url().optional(),
   /** Where people reach the app: the base of every link in an e-mail. */
   APP_URL: z.string().url().default('http://localhost:3000'),
+  /** First wait before a failed e-mail is tried again; it doubles each time (tests use 1). */
+  MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).default(5),
+  /** How long desk replies gather before one e-mail tells an offline contractor about them all. */
+  MAIL_REPLY_DELAY_SECONDS: z.coerce.number().int().min(1).default(120),
+  /** The PostgreSQL schema of the job queue; a separate one keeps a set of workers apart (tests). */
+  JOBS_SCHEMA: z
+    .string()
+    .regex(/^[a-z_][a-z0-9_]{0,50}$/, 'must be a lower-case SQL name')
+    .default('pgboss'),
   /** Meilisearch: when set, search runs there (PostgreSQL stays the fallback). */
   MEILI_URL: z.string().url().optional(),
   MEILI_API_KEY: z.string().optional(),
@@ -34,6 +43,9 @@ const envSchema = z.object({
   S3_SECRET_ACCESS_KEY: z.string().optional(),
   LOGIN_LIMIT_PER_EMAIL: z.coerce.number().int().min(1).default(5),
   LOGIN_LIMIT_PER_IP: z.coerce.number().int().min(1).default(100),
+  /** Password-reset requests per e-mail, and per address, in 15 minutes. */
+  RESET_LIMIT_PER_EMAIL: z.coerce.number().int().min(1).default(3),
+  RESET_LIMIT_PER_IP: z.coerce.number().int().min(1).default(20),
 });
 
 export type Config = Readonly<z.infer<typeof envSchema>>;

@@ -27,6 +27,8 @@ export interface Realtime {
   endSession(sessionId: string, reason: SessionEndReason): void;
   /** The same for every session of a user, except optionally one (the one making the change). */
   endUserSessions(userId: number, reason: SessionEndReason, exceptSessionId?: string): void;
+  /** Whether the user has a connected socket on any instance (they will see new messages live). */
+  isOnline(userId: number): Promise<boolean>;
 }
 
 export interface AppContext {
@@ -45,4 +47,5 @@ export const noRealtime: Realtime = {
   deliver: async () => 0,
   endSession() {},
   endUserSessions() {},
+  isOnline: async () => false,
 };

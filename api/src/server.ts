@@ -8,7 +8,7 @@ import { createDb, type DbHandle } from './db/client';
 import { createLogger } from './lib/logger';
 import { attachRealtime, type Io } from './realtime/io';
 import { createJobs } from './lib/jobs';
-import { registerWorkers } from './workers';
+import { jobQueueSettings, registerWorkers } from './workers';
 import { DiskStorage, S3Storage, type FileStorage } from './features/attachments/storage';
 
 /** S3 when a bucket is configured, else a folder on local disk. */
@@ -38,7 +38,10 @@ export interface RunningServer {
 export async function startServer(config: Config, options: { logger?: Logger } = {}): Promise<RunningServer> {
   const logger = options.logger ?? createLogger(config);
   const dbHandle: DbHandle = createDb(config.DATABASE_URL);
-  const jobs = createJobs(config.DATABASE_URL, logger);
+  const jobs = createJobs(config.DATABASE_URL, logger, {
+    schema: config.JOBS_SCHEMA,
+    queues: jobQueueSettings(config),
+  });
   const ctx: AppContext = {
     config,
     db: dbHandle.db,

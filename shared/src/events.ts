@@ -25,6 +25,8 @@ export interface ServerToClientEvents {
     deliveredAt?: string;
     readAt?: string;
   }) => void;
+  /** Staff only: a message of a ticket you joined was marked (or unmarked) as part of the answer. */
+  'message:marked': (payload: { ticketId: number; messageId: number; partOfAnswer: boolean }) => void;
   /** Someone else is typing in a ticket you joined. */
   typing: (payload: { ticketId: number; userId: number; name: string }) => void;
   /** A ticket was opened or changed: status, assignee, branch, urgency, last message. */
@@ -48,6 +50,11 @@ export interface ClientToServerEvents {
   'ticket:leave': (payload: { ticketId: number }, ack?: (res: Ack) => void) => void;
   'message:send': (payload: MessageSendPayload, ack: (res: Ack<{ message: Message }>) => void) => void;
   'message:read': (payload: { ticketId: number; messageId: number }, ack?: (res: Ack) => void) => void;
+  /** Staff: mark a message as part of the answer (the same as PATCH /api/tickets/:id/messages/:messageId). */
+  'message:mark': (
+    payload: { ticketId: number; messageId: number; partOfAnswer: boolean },
+    ack?: (res: Ack<{ message: Message }>) => void,
+  ) => void;
   typing: (payload: { ticketId: number }) => void;
   'presence:list': (ack: (res: Ack<{ online: PresenceEntry[] }>) => void) => void;
 }

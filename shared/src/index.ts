@@ -8,3 +8,7 @@ export * from './schemas/desk';
 export * from './schemas/equipmentSpec';
 export * from './schemas/readings';
 export * from './schemas/articles';
+export * from './schemas/search';
+export * from './schemas/writeUp';
+export * from './schemas/invitations';
+export * from './schemas/mail';

@@ -25,7 +25,7 @@ describe('health and readiness', () => {
 
   it('When the database answers, then /api/ready answers ok', async () => {
     const res = await new TestClient(server).get('/api/ready').expect(200);
-    expect(res.body.checks).toEqual({ database: 'up' });
+    expect(res.body.checks).toEqual({ database: 'up', search: 'postgres' });
   });
 
   it('When the database does not answer, then /api/ready answers 503 naming the database', async () => {

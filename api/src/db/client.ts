@@ -17,6 +17,9 @@ export function createDb(url: string, options: { max?: number } = {}): DbHandle 
     max: options.max ?? 10,
     idleTimeoutMillis: 30_000,
     connectionTimeoutMillis: 5_000,
+    // Title suggestions use pg_trgm's `<%` (word similarity, index-backed) at this threshold; set
+    // once per connection so a suggestion is one statement rather than a transaction of three.
+    options: '-c pg_trgm.word_similarity_threshold=0.45',
   });
   // An idle client that loses its connection must not crash the process.
   pool.on('error', () => {});

@@ -14,6 +14,10 @@ export type ErrorCode =
   | 'payload_too_large'
   | 'unsupported_media_type'
   | 'rate_limited'
+  | 'link_unknown'
+  | 'link_used'
+  | 'link_expired'
+  | 'link_revoked'
   | 'not_ready'
   | 'internal';
 

@@ -28,6 +28,24 @@ export type SendOptions = Pick<
 /** How a queue retries: eight more attempts, 5 s, 10 s, 20 s, … apart (about 20 min in all); kept a week. */
 const QUEUE_DEFAULTS = { retryLimit: 8, retryDelay: 5, retryBackoff: true, retentionMinutes: 7 * 24 * 60 };
 
+/**
+ * A queue's own settings, over the defaults. `short`: at most one job per `singletonKey` waits at a
+ * time (a second send while one waits is dropped and returns null). Retry settings also go on every
+ * job sent, so they hold even where the queue was created earlier with other values.
+ */
+export interface QueueSettings {
+  policy?: 'standard' | 'short';
+  retryLimit?: number;
+  retryDelay?: number;
+  retryBackoff?: boolean;
+}
+
+export interface JobsOptions {
+  /** The PostgreSQL schema pg-boss keeps its tables in (one per isolated set of workers). */
+  schema?: string;
+  queues?: Record<string, QueueSettings>;
+}
+
 /** Lets pg-boss write into a Drizzle transaction: it only needs `executeSql(text, values)`. */
 function asBossDb(tx: Executor): PgBoss.Db {
   // Drizzle does not expose the transaction's client in its types; node-postgres sessions keep it
@@ -37,12 +55,23 @@ function asBossDb(tx: Executor): PgBoss.Db {
   return { executeSql: (text, values) => client.query(text, values) };
 }
 
-export function createJobs(databaseUrl: string, logger: Logger): Jobs {
+export function createJobs(databaseUrl: string, logger: Logger, options: JobsOptions = {}): Jobs {
+  const settingsOf = (queue: string): QueueSettings => options.queues?.[queue] ?? {};
+  const retryOf = (queue: string) => {
+    const { retryLimit, retryDelay, retryBackoff } = settingsOf(queue);
+    return Object.fromEntries(
+      Object.entries({ retryLimit, retryDelay, retryBackoff }).filter(([, v]) => v !== undefined),
+    );
+  };
   const boss = new PgBoss({
     connectionString: databaseUrl,
-    schema: 'pgboss',
+    schema: options.schema ?? 'pgboss',
     max: 4,
     application_name: 'lightoff-jobs',
+    // A finished job (an e-mail's text, with any link in it) is not kept: archived after 10 minutes,
+    // deleted an hour later. Waiting and retrying jobs are kept as long as their queue says.
+    archiveCompletedAfterSeconds: 600,
+    deleteAfterHours: 1,
   });
   boss.on('error', (err) => logger.error({ err }, 'job queue error'));
   // Started on first use, so the server still starts (and reports not-ready) when the database is
@@ -61,7 +90,8 @@ export function createJobs(databaseUrl: string, logger: Logger): Jobs {
     // them is harmless, so look again and retry.
     for (let attempt = 1; ; attempt++) {
       try {
-        if (!(await boss.getQueue(queue))) await boss.createQueue(queue, { name: queue, ...QUEUE_DEFAULTS });
+        if (!(await boss.getQueue(queue)))
+          await boss.createQueue(queue, { name: queue, ...QUEUE_DEFAULTS, ...settingsOf(queue) });
         break;
       } catch (err) {
         if ((err as { code?: string }).code !== '40P01' || attempt >= 5) throw err;
@@ -73,9 +103,13 @@ export function createJobs(databaseUrl: string, logger: Logger): Jobs {
 
   return {
     boss,
-    async send(queue, data, options = {}, tx) {
+    async send(queue, data, sendOptions = {}, tx) {
       await ensureQueue(queue);
-      return boss.send(queue, data, { ...options, ...(tx ? { db: asBossDb(tx) } : {}) });
+      return boss.send(queue, data, {
+        ...retryOf(queue),
+        ...sendOptions,
+        ...(tx ? { db: asBossDb(tx) } : {}),
+      });
     },
     async work(queue, handler) {
       await ensureQueue(queue);

@@ -25,12 +25,14 @@ describe('policy matrix', () => {
     ['admin.branches.manage', { contractor: false, tech: false, specialist: false, admin: true }],
     ['home.view', { contractor: true, tech: true, specialist: true, admin: true }],
     ['password.change', { contractor: true, tech: true, specialist: true, admin: true }],
+    ['mail.preferences', { contractor: true, tech: true, specialist: true, admin: true }],
     ['realtime.connect', { contractor: true, tech: true, specialist: true, admin: true }],
     ['equipment.edit', { contractor: false, tech: false, specialist: true, admin: true }],
     ['check.run', { contractor: true, tech: true, specialist: true, admin: true }],
     ['desk.view', { contractor: false, tech: true, specialist: true, admin: true }],
     ['snippet.use', { contractor: false, tech: true, specialist: true, admin: true }],
     ['note.view', { contractor: false, tech: true, specialist: true, admin: true }],
+    ['search.synonyms', { contractor: false, tech: false, specialist: true, admin: true }],
   ];
   for (const [action, expected] of matrix) {
     it(`When each role asks for ${action}, then only the expected roles may`, () => {
@@ -50,6 +52,44 @@ describe('policy matrix', () => {
     expect(can(tech, 'article.edit', { authorId: tech.id })).toBe(true);
     expect(can(tech, 'article.edit', { authorId: 99 })).toBe(false);
     expect(can(contractor, 'article.write')).toBe(false);
+  });
+
+  it('When a message is marked or a ticket written up, then only staff who may work the ticket may', () => {
+    for (const action of ['message.mark', 'ticket.write-up'] as const) {
+      expect(can(contractor, action, { accountId: 10, branchId: 1 })).toBe(false);
+      expect(can(tech, action, { branchId: 1 })).toBe(true);
+      expect(can(tech, action, { branchId: 2 })).toBe(false);
+      expect(can(tech, action, { branchId: 2, assigneeId: tech.id })).toBe(true);
+      expect(can(specialist, action, { branchId: 1 })).toBe(true);
+      expect(can(admin, action, { branchId: 99 })).toBe(true);
+    }
+  });
+
+  it('When someone invites, then admins invite staff and an account owner only into their own account', () => {
+    const owner = user('contractor', { isAccountOwner: true });
+    expect([contractor, owner, tech, specialist, admin].map((u) => can(u, 'invitation.staff'))).toEqual([
+      false,
+      false,
+      false,
+      false,
+      true,
+    ]);
+    expect(can(owner, 'invitation.teammate', { accountId: 10 })).toBe(true);
+    expect(can(owner, 'invitation.teammate', { accountId: 11 })).toBe(false);
+    expect(can(contractor, 'invitation.teammate', { accountId: 10 })).toBe(false);
+    expect(can(admin, 'invitation.teammate', { accountId: 10 })).toBe(false);
+    expect([contractor, owner, tech, specialist, admin].map((u) => can(u, 'invitation.list'))).toEqual([
+      false,
+      true,
+      false,
+      false,
+      true,
+    ]);
+    expect(can(owner, 'invitation.revoke', { accountId: 10 })).toBe(true);
+    expect(can(owner, 'invitation.revoke', { accountId: 11 })).toBe(false);
+    expect(can(owner, 'invitation.revoke', { accountId: null })).toBe(false);
+    expect(can(tech, 'invitation.revoke', { accountId: null })).toBe(false);
+    expect(can(admin, 'invitation.revoke', { accountId: 11 })).toBe(true);
   });
 
   it('When nobody is signed in, then nothing is allowed', () => {

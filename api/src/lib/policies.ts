@@ -9,8 +9,13 @@ export type Action =
   | 'admin.users.manage'
   | 'admin.accounts.manage'
   | 'admin.branches.manage'
+  | 'invitation.staff'
+  | 'invitation.teammate'
+  | 'invitation.list'
+  | 'invitation.revoke'
   | 'home.view'
   | 'password.change'
+  | 'mail.preferences'
   | 'account.view'
   | 'branch.view'
   | 'realtime.connect'
@@ -21,6 +26,8 @@ export type Action =
   | 'ticket.resolve-own'
   | 'note.view'
   | 'note.post'
+  | 'message.mark'
+  | 'ticket.write-up'
   | 'snippet.use'
   | 'snippet.edit'
   | 'desk.view'
@@ -30,7 +37,8 @@ export type Action =
   | 'article.edit'
   | 'article.publish'
   | 'article.retire'
-  | 'search.insights';
+  | 'search.insights'
+  | 'search.synonyms';
 
 export interface Resource {
   authorId?: number | null;
@@ -51,13 +59,23 @@ const staffSeesTicket: Rule = (u, r) =>
   u.role === 'admin' ||
   (isStaff(u) && ((r.branchId != null && u.branchIds.includes(r.branchId)) || r.assigneeId === u.id));
 const adminOnly: Rule = (u) => u.role === 'admin';
+const isOwnerOf = (u: SessionUser, accountId: number | null | undefined) =>
+  u.role === 'contractor' && u.isAccountOwner && u.accountId != null && u.accountId === accountId;
 
 const RULES: Record<Action, Rule> = {
   'admin.users.manage': adminOnly,
   'admin.accounts.manage': adminOnly,
   'admin.branches.manage': adminOnly,
+  // Admins invite staff; an account owner invites teammates into their own account only.
+  'invitation.staff': adminOnly,
+  'invitation.teammate': (u, r) => isOwnerOf(u, r.accountId),
+  // Admins see and revoke every invitation; an owner those into their own account.
+  'invitation.list': (u) => u.role === 'admin' || (u.role === 'contractor' && u.isAccountOwner),
+  'invitation.revoke': (u, r) => u.role === 'admin' || isOwnerOf(u, r.accountId),
   'home.view': anyone,
   'password.change': anyone,
+  // Everyone chooses which optional e-mails they get, for themselves only.
+  'mail.preferences': anyone,
   'realtime.connect': anyone,
   'equipment.search': anyone,
   // Contractors open tickets for their own account only.
@@ -69,6 +87,10 @@ const RULES: Record<Action, Rule> = {
   // Internal notes never reach contractors.
   'note.view': staffOnly,
   'note.post': staffOnly,
+  // Which messages answered a ticket is the desk's call, on tickets they work; contractors never see it.
+  'message.mark': staffSeesTicket,
+  // Writing a ticket up as a draft article: staff who may work the ticket (and so write articles).
+  'ticket.write-up': staffSeesTicket,
   'snippet.use': staffOnly,
   'desk.view': staffOnly,
   // The checks are arithmetic anyone signed in may run; nothing of another account is read.
@@ -90,6 +112,8 @@ const RULES: Record<Action, Rule> = {
   'article.publish': (u, r) => u.role === 'admin' || (u.role === 'specialist' && r.authorId !== u.id),
   'article.retire': (u) => u.role === 'specialist' || u.role === 'admin',
   'search.insights': (u) => u.role === 'specialist' || u.role === 'admin',
+  // The synonym groups change what everyone's searches find.
+  'search.synonyms': (u) => u.role === 'specialist' || u.role === 'admin',
   // A contractor sees their own account only; staff see every account (they serve them all).
   'account.view': (u, r) => (u.role === 'contractor' ? u.accountId === r.accountId : isStaff(u)),
   // Admins see every branch; other staff their own; contractors none directly.

@@ -89,6 +89,14 @@ export function attachRealtime(
           .emit('message:new', { message }, (_err: unknown, acks: unknown[] = []) => resolve(acks.length));
       }),
     endSession: (sessionId, reason) => endRoom(`session:${sessionId}`, reason),
+    // Asks every instance (through the adapter); an instance that does not answer counts as offline.
+    isOnline: async (userId) => {
+      try {
+        return (await io.in(rooms.user(userId)).fetchSockets()).length > 0;
+      } catch {
+        return false;
+      }
+    },
     endUserSessions: (userId, reason, exceptSessionId) => {
       const target = exceptSessionId
         ? io.to(`user:${userId}`).except(`session:${exceptSessionId}`)

@@ -63,6 +63,22 @@ export const articleSummarySchema = z.object({
 });
 export type ArticleSummary = z.infer<typeof articleSummarySchema>;
 
+export const REMOVED_KINDS = ['name', 'company', 'phone', 'email', 'address', 'serial'] as const;
+export type RemovedKind = (typeof REMOVED_KINDS)[number];
+/** A piece of contact detail taken out of a ticket's text when it was written up. */
+export const removedItemSchema = z.object({ kind: z.enum(REMOVED_KINDS), text: z.string() });
+export type RemovedItem = z.infer<typeof removedItemSchema>;
+
+/** Where an article came from: the tickets written up into it. */
+export const articleOriginSchema = z.object({
+  ticketCount: z.number().int(),
+  /** Only the tickets this reader may open (none for contractors). */
+  tickets: z.array(z.object({ id: z.number().int(), number: z.string() })),
+  /** What the write-up removed; only for readers who may edit the article. */
+  removed: z.array(removedItemSchema).optional(),
+});
+export type ArticleOrigin = z.infer<typeof articleOriginSchema>;
+
 export const articleSchema = articleSummarySchema.extend({
   body: z.string(),
   bodyHtml: z.string(),
@@ -74,8 +90,20 @@ export const articleSchema = articleSummarySchema.extend({
   notHelpedCount: z.number().int(),
   viewCount: z.number().int(),
   touchesGas: z.boolean(),
+  /** Set when the article was written up from tickets. */
+  origin: articleOriginSchema.nullable().optional(),
 });
 export type Article = z.infer<typeof articleSchema>;
+
+/** A picture in an article's text, as `POST /api/articles/:id/images` answers it. */
+export const articleImageSchema = z.object({
+  id: z.number().int(),
+  /** `/api/articles/<article id>/images/<id>`: the only image address article text may use. */
+  url: z.string(),
+  width: z.number().int().nullable(),
+  height: z.number().int().nullable(),
+});
+export type ArticleImage = z.infer<typeof articleImageSchema>;
 
 // Search -----------------------------------------------------------------------------------------
 export const searchQuerySchema = z.object({
@@ -103,14 +131,31 @@ export const searchHitSchema = z.object({
 });
 export type SearchHit = z.infer<typeof searchHitSchema>;
 
-export interface SearchResponse {
-  hits: SearchHit[];
-  total: number;
-  facets: { kind: Record<string, number> };
-  engine: 'postgres' | 'meilisearch';
-  tookMs: number;
-  queryId: number | null;
-}
+/**
+ * Counts over the matched set, as the reader may see it. Each facet leaves out its own filter (and
+ * only its own), so the other values of a chosen filter stay visible with their counts. Equipment
+ * type, brand and fuel come from the equipment models linked to the article.
+ */
+export const searchFacetsSchema = z.object({
+  kind: z.record(z.string(), z.number().int()),
+  equipmentType: z.record(z.string(), z.number().int()),
+  brand: z.record(z.string(), z.number().int()),
+  fuel: z.record(z.string(), z.number().int()),
+});
+export type SearchFacets = z.infer<typeof searchFacetsSchema>;
+
+export const searchResponseSchema = z.object({
+  hits: z.array(searchHitSchema),
+  total: z.number().int(),
+  facets: searchFacetsSchema,
+  /** The engine that answered. */
+  engine: z.enum(['postgres', 'meilisearch']),
+  /** True when Meilisearch is configured but did not answer, so PostgreSQL answered instead. */
+  fallback: z.boolean(),
+  tookMs: z.number(),
+  queryId: z.number().int().nullable(),
+});
+export type SearchResponse = z.infer<typeof searchResponseSchema>;
 
 /** The front matter of a seed article in kb/*.md. */
 export const kbFrontMatterSchema = z.object({

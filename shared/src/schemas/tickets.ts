@@ -159,6 +159,8 @@ export const messageSchema = z.object({
   readAt: z.string().nullable(),
   /** Structured content of an event message, e.g. a check result card: { type: 'reading', reading }. */
   data: z.record(z.string(), z.unknown()).nullable().optional(),
+  /** Marked by the desk as part of the answer (for the write-up); sent to staff readers only. */
+  partOfAnswer: z.boolean().optional(),
 });
 export type Message = z.infer<typeof messageSchema>;
 

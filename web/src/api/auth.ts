@@ -10,4 +10,12 @@ export const authApi = {
   logout: () => http.post<void>('/auth/logout'),
   /** POST /api/auth/password (204) */
   changePassword: (body: PasswordChangeBody) => http.post<void>('/auth/password', body),
+  /** POST /api/auth/password-reset (202, the same answer for any e-mail) */
+  requestReset: (email: string) => http.post<{ message: string }>('/auth/password-reset', { email }),
+  /** POST /api/auth/password-reset/check: is the link still usable, and for which sign-in */
+  checkReset: (token: string) =>
+    http.post<{ email: string; expiresAt: string }>('/auth/password-reset/check', { token }),
+  /** POST /api/auth/password-reset/confirm (204) */
+  confirmReset: (token: string, password: string) =>
+    http.post<void>('/auth/password-reset/confirm', { token, password }),
 };

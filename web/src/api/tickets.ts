@@ -7,6 +7,7 @@ import type {
   TicketStatus,
   TicketUpdate,
 } from '@shared/schemas/tickets';
+import type { WriteUpCreate, WriteUpLink, WriteUpResult } from '@shared/schemas/writeUp';
 import { http, type Query, type UploadOptions } from './http';
 
 export interface TicketListParams extends Query {
@@ -54,6 +55,15 @@ export const ticketsApi = {
     http.get<{ items: Message[] }>(`/tickets/${id}/messages`, { after }, signal),
   sendMessage: (id: number, draft: MessageDraft) =>
     http.post<{ message: Message }>(`/tickets/${id}/messages`, draft),
+  /** PATCH /api/tickets/:id/messages/:messageId (staff): part of the answer, or not. */
+  markMessage: (id: number, messageId: number, partOfAnswer: boolean) =>
+    http.patch<{ message: Message }>(`/tickets/${id}/messages/${messageId}`, { partOfAnswer }),
+  /** POST /api/tickets/:id/write-up (staff, resolved tickets) → 201, a draft article in review. */
+  writeUp: (id: number, input: Partial<WriteUpCreate>) =>
+    http.post<WriteUpResult>(`/tickets/${id}/write-up`, input),
+  /** GET /api/tickets/:id/write-ups: the articles this ticket became, that this reader may open. */
+  writeUps: (id: number, signal?: AbortSignal) =>
+    http.get<{ items: WriteUpLink[] }>(`/tickets/${id}/write-ups`, undefined, signal),
 };
 
 export const equipmentApi = {

@@ -87,6 +87,12 @@ describe('conversation merging', () => {
     const merged = mergeMessages([message(3, 'abc12345')], [message(1), message(3, 'abc12345'), message(2)]);
     expect(merged.map((m) => m.id)).toEqual([1, 2, 3]);
   });
+
+  it('When a copy without the answer mark arrives for a marked message, then the mark is kept; a new mark wins', () => {
+    const marked = { ...message(4), partOfAnswer: true };
+    expect(mergeMessages([marked], [message(4)])[0]?.partOfAnswer).toBe(true);
+    expect(mergeMessages([marked], [{ ...message(4), partOfAnswer: false }])[0]?.partOfAnswer).toBe(false);
+  });
 });
 
 describe('first-response clock', () => {

@@ -29,7 +29,11 @@ export function mergeTicket(
 /** Messages after one arrives: one copy per id (ack and broadcast both bring it), oldest first. */
 export function mergeMessages(list: readonly Message[], incoming: readonly Message[]): Message[] {
   const byId = new Map<number, Message>();
-  for (const m of [...list, ...incoming]) byId.set(m.id, m);
+  for (const m of [...list, ...incoming]) {
+    // A copy that does not say whether it is part of the answer keeps what was known.
+    const known = byId.get(m.id)?.partOfAnswer;
+    byId.set(m.id, m.partOfAnswer === undefined && known !== undefined ? { ...m, partOfAnswer: known } : m);
+  }
   return [...byId.values()].sort((a, b) => a.id - b.id);
 }
 

@@ -31,9 +31,17 @@ export function hasSearch(params: SearchParams): boolean {
 }
 
 /** The knowledge-base home: debounced search with filters, and what changed lately when idle. */
-export function useKbSearch(options: { reviewer: boolean } = { reviewer: false }) {
-  const text = ref('');
-  const filters = reactive<KbFilters>({ kind: '', equipmentType: '', brand: '', fuel: '' });
+export function useKbSearch(
+  options: { reviewer: boolean; initial?: { q: string; filters: KbFilters } } = { reviewer: false },
+) {
+  const text = ref(options.initial?.q ?? '');
+  const filters = reactive<KbFilters>({
+    kind: '',
+    equipmentType: '',
+    brand: '',
+    fuel: '',
+    ...options.initial?.filters,
+  });
   const debounced = useDebouncedRef(text, 300);
   const params = computed(() => toSearchParams(debounced.value, filters, 'kb'));
   const active = computed(() => hasSearch(params.value));
@@ -56,7 +64,7 @@ export function useKbSearch(options: { reviewer: boolean } = { reviewer: false }
     enabled: options.reviewer,
   });
 
-  return { text, filters, active, results, recent, reviewing };
+  return { text, debounced, filters, active, results, recent, reviewing };
 }
 
 /** Search for articles from elsewhere (new ticket, desk): wording from a getter, debounced. */

@@ -65,6 +65,12 @@ export function useTicketChat(ticketId: number) {
     ack?.({ ok: true });
     add([payload.message]);
   };
+  const onMarked = (p: { ticketId: number; messageId: number; partOfAnswer: boolean }) => {
+    if (p.ticketId !== ticketId) return;
+    messages.value = messages.value.map((m) =>
+      m.id === p.messageId ? { ...m, partOfAnswer: p.partOfAnswer } : m,
+    );
+  };
   const onConnect = () => {
     join();
     // Catch up first: a waiting message may have reached the server before the line dropped.
@@ -85,6 +91,7 @@ export function useTicketChat(ticketId: number) {
     if (stopped) return;
     socket = s;
     s.on('message:new', onMessage);
+    s.on('message:marked', onMarked);
     s.on('connect', onConnect);
     if (s.connected) join();
   });
@@ -95,6 +102,7 @@ export function useTicketChat(ticketId: number) {
     window.removeEventListener('offline', onOffline);
     if (!socket) return;
     socket.off('message:new', onMessage);
+    socket.off('message:marked', onMarked);
     socket.off('connect', onConnect);
     if (socket.connected) socket.emit('ticket:leave', { ticketId });
   });
@@ -152,9 +160,16 @@ export function useTicketChat(ticketId: number) {
     }
   }
 
+  /** Staff: mark a message as part of the answer (or not); the thread follows what the server says. */
+  async function mark(messageId: number, partOfAnswer: boolean): Promise<void> {
+    const { message } = await ticketsApi.markMessage(ticketId, messageId, partOfAnswer);
+    onMarked({ ticketId, messageId, partOfAnswer: message.partOfAnswer ?? partOfAnswer });
+  }
+
   return {
     messages,
     pending: outbox.items,
+    mark,
     loading,
     error,
     sending,

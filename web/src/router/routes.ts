@@ -10,6 +10,10 @@ type Info<Name extends string, Path extends string> = RouteRecordInfo<Name, Path
 export interface RouteNamedMap {
   root: Info<'root', '/'>;
   'sign-in': Info<'sign-in', '/sign-in'>;
+  'password-reset-request': Info<'password-reset-request', '/reset'>;
+  'password-reset': RouteRecordInfo<'password-reset', '/reset/:token', { token: string }, { token: string }>;
+  join: RouteRecordInfo<'join', '/join/:token', { token: string }, { token: string }>;
+  unsubscribe: Info<'unsubscribe', '/unsubscribe'>;
   'contractor-home': Info<'contractor-home', '/company'>;
   'staff-home': Info<'staff-home', '/desk'>;
   tickets: Info<'tickets', '/tickets'>;
@@ -31,6 +35,7 @@ export interface RouteNamedMap {
   kb: Info<'kb', '/kb'>;
   'kb-new': Info<'kb-new', '/kb/new'>;
   'kb-missed': Info<'kb-missed', '/kb/missed'>;
+  'kb-synonyms': Info<'kb-synonyms', '/kb/synonyms'>;
   'kb-article': RouteRecordInfo<'kb-article', '/kb/:slug', { slug: string }, { slug: string }>;
   'kb-edit': RouteRecordInfo<'kb-edit', '/kb/:slug/edit', { slug: string }, { slug: string }>;
   'not-found': RouteRecordInfo<
@@ -78,6 +83,32 @@ export const routes: RouteRecordRaw[] = [
     name: 'sign-in',
     component: SignInView,
     meta: { guestOnly: true, title: 'signIn.title', touch: true },
+  },
+  // Reached from e-mailed links, signed in or not: the link's token is the only key.
+  {
+    path: '/reset',
+    name: 'password-reset-request',
+    component: () => import('@/views/PasswordResetRequestView.vue'),
+    meta: { title: 'passwordReset.requestTitle', touch: true },
+  },
+  {
+    path: '/reset/:token',
+    name: 'password-reset',
+    component: () => import('@/views/PasswordResetView.vue'),
+    meta: { title: 'passwordReset.title', touch: true },
+  },
+  {
+    path: '/join/:token',
+    name: 'join',
+    component: () => import('@/views/JoinView.vue'),
+    meta: { title: 'join.title', touch: true },
+  },
+  // The "stop these e-mails" link: works signed in or not, the signed token in the query is the key.
+  {
+    path: '/unsubscribe',
+    name: 'unsubscribe',
+    component: () => import('@/views/UnsubscribeView.vue'),
+    meta: { title: 'mail.unsubscribe.title', touch: true },
   },
   {
     path: '/company',
@@ -174,6 +205,12 @@ export const routes: RouteRecordRaw[] = [
     name: 'kb-missed',
     component: () => import('@/views/KbMissedSearchesView.vue'),
     meta: { roles: KB_REVIEWER_ROLES, title: 'kb.missed.title' },
+  },
+  {
+    path: '/kb/synonyms',
+    name: 'kb-synonyms',
+    component: () => import('@/views/KbSynonymsView.vue'),
+    meta: { roles: KB_REVIEWER_ROLES, title: 'kb.synonyms.title' },
   },
   {
     path: '/kb/:slug',

@@ -51,6 +51,13 @@ export const useSessionStore = defineStore('session', () => {
     return me;
   }
 
+  /** Take over a session the server has just started for someone (joining by invitation). */
+  function adopt(next: SessionUser): void {
+    connection.disconnect();
+    queryClient.clear();
+    start(next);
+  }
+
   /** Forget everything about the session locally (the server side is already gone or going). */
   function clear(): void {
     connection.disconnect();
@@ -84,6 +91,7 @@ export const useSessionStore = defineStore('session', () => {
     load,
     signIn,
     signOut,
+    adopt,
     clear,
   };
 });

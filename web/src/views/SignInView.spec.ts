@@ -23,6 +23,7 @@ async function mountSignIn(login: () => Response) {
     routes: [
       { path: '/sign-in', name: 'sign-in', component: SignInView },
       { path: '/company', name: 'contractor-home', component: { template: '<p>home</p>' } },
+      { path: '/reset', name: 'password-reset-request', component: { template: '<p>reset</p>' } },
     ],
   });
   await router.push('/sign-in');

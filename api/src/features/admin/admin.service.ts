@@ -13,7 +13,9 @@ import { audit } from '../../lib/audit';
 import { AppError } from '../../lib/errors';
 import { isForeignKeyViolation, isUniqueViolation } from '../../lib/pg-errors';
 import { hashPassword } from '../../lib/passwords';
+import { assertPasswordRule } from '../../lib/password-rule';
 import { deleteSessionsOf } from '../auth/auth.repository';
+import { notifyEmailChanged } from '../mail/notifications';
 import * as accounts from './accounts.repository';
 import * as branches from './branches.repository';
 import * as users from './users.repository';
@@ -109,6 +111,7 @@ function roleLinks(
 
 export async function createUser(ctx: AppContext, actor: SessionUser, input: UserCreate) {
   const links = roleLinks(input.role, input);
+  assertPasswordRule(input.password, 'password', [input.email, input.name]);
   const passwordHash = await hashPassword(input.password);
   const id = await ctx.db
     .transaction(async (tx) => {
@@ -165,6 +168,10 @@ export async function updateUser(ctx: AppContext, actor: SessionUser, id: number
       });
       await users.setBranches(tx, id, links.branchIds);
       if (deactivated) await deleteSessionsOf(tx, id);
+      if (input.email !== undefined && input.email.toLowerCase() !== current.email.toLowerCase()) {
+        const name = input.name ?? current.name;
+        await notifyEmailChanged(ctx, tx, { name, oldEmail: current.email, newEmail: input.email });
+      }
       await audit(tx, {
         actorId: actor.id,
         action: deactivated ? 'user.deactivate' : 'user.update',

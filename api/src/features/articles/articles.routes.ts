@@ -1,4 +1,5 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
 import { z } from 'zod';
 import type { AppContext } from '../../context';
 import {
@@ -7,12 +8,35 @@ import {
   articleUpdateSchema,
   feedbackSchema,
   idParamsSchema,
+  idSchema,
   sendBackSchema,
   slugSchema,
 } from '../../../../shared/src/index';
 import { signedIn } from '../../lib/policies';
 import { parsed, validate } from '../../lib/validate';
 import * as articles from './articles.service';
+import { assertMayAddImage, readArticleImage, uploadArticleImage } from './images.service';
+import { AppError } from '../../lib/errors';
+import { MAX_FILE_BYTES } from '../attachments/images';
+
+const imageParams = idParamsSchema.extend({ imageId: idSchema });
+
+// One photo, held in memory (at most 15 MB) so nothing touches disk before it is checked.
+const imageUpload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: MAX_FILE_BYTES, files: 1, fields: 2, parts: 3 },
+}).single('file');
+const oneImage: RequestHandler = (req, res, next) =>
+  imageUpload(req, res, (err: unknown) => {
+    const e = err as { name?: string; code?: string } | undefined;
+    if (e?.name === 'MulterError' && e.code !== 'LIMIT_FILE_SIZE') {
+      next(
+        AppError.validation({ file: 'Send one photo, in the `file` field' }, 'The upload could not be read'),
+      );
+      return;
+    }
+    next(err);
+  });
 
 const slugParams = z.object({ slug: z.string().max(120) });
 
@@ -85,6 +109,40 @@ export function articlesRouter(ctx: AppContext): Router {
     const { helped, comment } = parsed(res, 'body', feedbackSchema);
     res.json({ article: await articles.giveFeedback(ctx, signedIn(req), id(res), helped, comment) });
   });
+
+  /** POST /api/articles/:id/images (multipart `file`) — whoever may edit the article: one photo for its text. */
+  router.post(
+    '/:id/images',
+    byId,
+    async (req, res, next) => {
+      // Check access before reading a byte of the upload.
+      await assertMayAddImage(ctx, signedIn(req), id(res));
+      next();
+    },
+    oneImage,
+    async (req, res) => {
+      res.status(201).json({ image: await uploadArticleImage(ctx, signedIn(req), id(res), req.file) });
+    },
+  );
+
+  /** GET /api/articles/:id/images/:imageId[/thumb] — whoever may read the article: the picture itself. */
+  for (const variant of ['full', 'thumb'] as const) {
+    const path = variant === 'full' ? '/:id/images/:imageId' : '/:id/images/:imageId/thumb';
+    router.get(path, validate('params', imageParams), async (req, res) => {
+      const { id: articleId, imageId } = parsed(res, 'params', imageParams);
+      const file = await readArticleImage(ctx, signedIn(req), articleId, imageId, variant);
+      res
+        .set({
+          'Content-Type': file.contentType,
+          'Content-Disposition': `inline; filename="${file.fileName.replace(/[^\x20-\x7e]|"/g, '_')}"`,
+          'X-Content-Type-Options': 'nosniff',
+          // An image's bytes never change under its id, so a reader's browser may keep it.
+          'Cache-Control': 'private, max-age=31536000, immutable',
+          'Content-Security-Policy': "default-src 'none'; sandbox",
+        })
+        .send(file.body);
+    });
+  }
 
   return router;
 }

@@ -1,8 +1,8 @@
 import { eq } from 'drizzle-orm';
 import type { AppContext } from '../../context';
 
-/** Articles need only the database. */
-type Ctx = Pick<AppContext, 'db'>;
+/** Articles need the database; with the job queue and config they also keep the search index in step. */
+type Ctx = Pick<AppContext, 'db'> & Partial<Pick<AppContext, 'jobs' | 'config'>>;
 import { articles } from '../../db/schema/index';
 import type {
   Article,
@@ -16,7 +16,9 @@ import { AppError } from '../../lib/errors';
 import { authorize, can } from '../../lib/policies';
 import { and } from 'drizzle-orm';
 import * as repo from './articles.repository';
+import { originOf } from './origin';
 import { renderArticle, touchesGas } from './render';
+import { queueSearchSync } from '../search/search.sync';
 
 const slugify = (title: string) =>
   title
@@ -27,7 +29,7 @@ const slugify = (title: string) =>
     .replace(/^-+|-+$/g, '')
     .slice(0, 80) || 'article';
 
-async function uniqueSlug(ctx: Ctx, title: string) {
+export async function uniqueSlug(ctx: Ctx, title: string) {
   const base = slugify(title);
   for (let n = 1; ; n++) {
     const slug = n === 1 ? base : `${base}-${n}`;
@@ -48,6 +50,7 @@ async function load(ctx: Ctx, user: SessionUser, where: ReturnType<typeof eq>): 
     models: await repo.modelsOf(ctx.db, row.id),
     author: { id: authorId, name: authorName },
     touchesGas: gas,
+    origin: await originOf(ctx.db, user, { id: row.id, authorId }),
   };
 }
 
@@ -101,6 +104,7 @@ export async function createArticle(
       targetType: 'article',
       targetId: articleId,
     });
+    await queueSearchSync(ctx, articleId, tx);
     return articleId;
   });
   return getArticle(ctx, user, id);
@@ -129,6 +133,7 @@ export async function updateArticle(ctx: Ctx, user: SessionUser, id: number, inp
     await repo.insertRevision(tx, { articleId: id, ...next, authorId: user.id, note: input.note ?? null });
     if (current.status === 'published')
       await repo.recordWords(tx, `${next.title} ${next.summary} ${next.body}`);
+    await queueSearchSync(ctx, id, tx);
   });
   return getArticle(ctx, user, id);
 }
@@ -171,6 +176,7 @@ export async function moveArticle(ctx: Ctx, user: SessionUser, id: number, move:
       targetId: id,
       details: note ? { note } : undefined,
     });
+    if (move === 'publish' || move === 'retire') await queueSearchSync(ctx, id, tx);
   });
   return getArticle(ctx, user, id);
 }

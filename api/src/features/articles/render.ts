@@ -29,6 +29,9 @@ md.use(container, 'spec', {
   },
 });
 
+/** `/api/articles/<id>/images/<n>` and nothing else (no query, no fragment, no dot segments). */
+export const ARTICLE_IMAGE_SRC = /^\/api\/articles\/[1-9]\d{0,9}\/images\/[1-9]\d{0,9}$/;
+
 const SANITIZE: sanitizeHtml.IOptions = {
   allowedTags: [
     'h1',
@@ -59,7 +62,7 @@ const SANITIZE: sanitizeHtml.IOptions = {
   ],
   allowedAttributes: {
     a: ['href', 'title'],
-    img: ['src', 'alt', 'title'],
+    img: ['src', 'alt', 'title', 'loading'],
     div: ['class', 'data-spec'],
     p: ['class'],
     th: ['style'],
@@ -74,12 +77,15 @@ const SANITIZE: sanitizeHtml.IOptions = {
     p: ['kb-caution-label'],
   },
   allowedSchemes: ['https', 'http', 'mailto'],
-  // Images only from our own attachment route: no tracking pixels, no data: payloads.
+  // Images only from the article-image route, served with the article's own visibility: no other
+  // site's images (tracking pixels, mixed content), no data: payloads, no ticket attachments.
   allowedSchemesByTag: { img: [] },
   allowProtocolRelative: false,
-  exclusiveFilter: (frame) =>
-    frame.tag === 'img' && !/^\/api\/(articles|attachments)\//.test(frame.attribs.src ?? ''),
-  transformTags: { a: sanitizeHtml.simpleTransform('a', { rel: 'noopener noreferrer nofollow' }) },
+  exclusiveFilter: (frame) => frame.tag === 'img' && !ARTICLE_IMAGE_SRC.test(frame.attribs.src ?? ''),
+  transformTags: {
+    a: sanitizeHtml.simpleTransform('a', { rel: 'noopener noreferrer nofollow' }),
+    img: sanitizeHtml.simpleTransform('img', { loading: 'lazy' }),
+  },
 };
 
 const GAS_WORDS =

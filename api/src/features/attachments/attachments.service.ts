@@ -90,7 +90,7 @@ export async function readAttachment(
 }
 
 /** The name people see: the uploaded base name, tamed, with the extension of what we stored. */
-function safeName(original: string, extension: string) {
+export function safeName(original: string, extension: string) {
   const base =
     original
       .replace(/\.[^.]*$/, '')

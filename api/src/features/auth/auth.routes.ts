@@ -15,6 +15,7 @@ import { parsed, validate } from '../../lib/validate';
 import { audit } from '../../lib/audit';
 import { changePassword, recordSignIn } from './auth.service';
 import { SESSION_COOKIE } from './session';
+import { passwordResetRouter } from './password-reset.routes';
 
 const WINDOW_MS = 15 * 60 * 1000;
 
@@ -55,7 +56,8 @@ function loginLimiters(ctx: AppContext) {
   ];
 }
 
-function logIn(req: Request, user: SessionUser): Promise<void> {
+/** Signs the request in as `user` (also after joining by invitation). */
+export function logIn(req: Request, user: SessionUser): Promise<void> {
   // passport regenerates the session id here; keepSessionInfo carries the CSRF token over.
   return new Promise((resolve, reject) =>
     req.logIn(user, { session: true, keepSessionInfo: true }, (err) => (err ? reject(err) : resolve())),
@@ -111,6 +113,8 @@ export function authRouter(ctx: AppContext, pp: passport.PassportStatic): Router
     if (!req.user) throw AppError.unauthenticated();
     res.set('Cache-Control', 'no-store').json({ user: req.user });
   });
+
+  router.use('/password-reset', passwordResetRouter(ctx));
 
   /** POST /api/auth/password — signed in: change my password (other sessions end). */
   router.post('/password', validate('body', passwordChangeBodySchema), async (req, res) => {

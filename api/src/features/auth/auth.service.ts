@@ -3,6 +3,7 @@ import type { SessionUser } from '../../../../shared/src/schemas/auth';
 import { audit } from '../../lib/audit';
 import { AppError } from '../../lib/errors';
 import { hashPassword, verifyPassword } from '../../lib/passwords';
+import { assertPasswordRule } from '../../lib/password-rule';
 import * as repo from './auth.repository';
 
 /** A wrong password and an unknown e-mail get the same answer, in the same time. */
@@ -32,6 +33,7 @@ export async function changePassword(
   if (!stored || !(await verifyPassword(stored, input.current))) {
     throw AppError.validation({ current: 'This is not your current password' });
   }
+  assertPasswordRule(input.next, 'next', [user.email, user.name]);
   const nextHash = await hashPassword(input.next);
   await db.transaction(async (tx) => {
     await repo.updatePasswordHash(tx, user.id, nextHash);

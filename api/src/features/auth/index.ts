@@ -1,2 +1,2 @@
-export { authRouter, csrf } from './auth.routes';
+export { authRouter, csrf, logIn } from './auth.routes';
 export { absoluteTimeout, createPassport, createSessionMiddleware, SESSION_COOKIE } from './session';

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { sql } from 'drizzle-orm';
 import type { AppContext } from '../../context';
+import { searchStatus } from '../search/search.engines';
 
 export function healthRouter(ctx: AppContext): Router {
   const router = Router();
@@ -10,7 +11,10 @@ export function healthRouter(ctx: AppContext): Router {
     res.set('Cache-Control', 'no-store').json({ status: 'ok', uptimeSeconds: Math.round(process.uptime()) });
   });
 
-  /** GET /api/ready — anyone: the process and its database answer; 503 naming what is down. */
+  /**
+   * GET /api/ready — anyone: the process and its database answer; 503 naming what is down. The
+   * search engine is reported but never makes it unready: PostgreSQL answers when Meilisearch is down.
+   */
   router.get('/ready', async (_req, res) => {
     res.set('Cache-Control', 'no-store');
     const down = await databaseDown(ctx);
@@ -24,7 +28,7 @@ export function healthRouter(ctx: AppContext): Router {
       });
       return;
     }
-    res.json({ status: 'ok', checks: { database: 'up' } });
+    res.json({ status: 'ok', checks: { database: 'up', search: await searchStatus(ctx) } });
   });
 
   return router;

@@ -1,4 +1,4 @@
-import type { SearchHit, SearchQuery } from '../../../../shared/src/index';
+import type { SearchFacets, SearchHit, SearchQuery } from '../../../../shared/src/index';
 
 /** Who is searching: the audience filter happens inside the engine's query, never afterwards. */
 export interface SearchReader {
@@ -9,8 +9,10 @@ export interface SearchReader {
 export interface EngineResult {
   hits: SearchHit[];
   total: number;
-  facets: { kind: Record<string, number> };
+  facets: SearchFacets;
 }
+
+export const noFacets = (): SearchFacets => ({ kind: {}, equipmentType: {}, brand: {}, fuel: {} });
 
 /** One interface, two engines: PostgreSQL (embedded, tests) and Meilisearch (production). */
 export interface SearchEngine {

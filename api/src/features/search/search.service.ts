@@ -4,22 +4,26 @@ import { searchQueries } from '../../db/schema/index';
 import type { SearchQuery, SearchResponse, SessionUser } from '../../../../shared/src/index';
 import { AppError } from '../../lib/errors';
 import { authorize } from '../../lib/policies';
-import { PostgresSearch } from './search.postgres';
-import type { SearchEngine } from './search.engine';
+import { answer, enginesOf } from './search.engines';
+import { noFacets, type SearchEngine } from './search.engine';
 
-const engines = new WeakMap<AppContext, SearchEngine>();
-/** The engine configured for this server (PostgreSQL is the embedded default). */
+/** The engine configured for this server: Meilisearch when MEILI_URL is set, else PostgreSQL. */
 export function engineOf(ctx: AppContext): SearchEngine {
-  let engine = engines.get(ctx);
-  if (!engine) engines.set(ctx, (engine = new PostgresSearch(ctx.db)));
-  return engine;
+  const engines = enginesOf(ctx);
+  return engines.meili ?? engines.postgres;
 }
 
 /** Runs a search and logs it (who, what, how many hits) so specialists can see what is missing. */
 export async function search(ctx: AppContext, user: SessionUser, q: SearchQuery): Promise<SearchResponse> {
   const started = performance.now();
-  const engine = engineOf(ctx);
-  const result = q.q ? await engine.search(user, q) : { hits: [], total: 0, facets: { kind: {} } };
+  const answered = q.q
+    ? await answer(ctx, (engine) => engine.search(user, q))
+    : {
+        value: { hits: [], total: 0, facets: noFacets() },
+        engine: engineOf(ctx).name,
+        fallback: false,
+      };
+  const result = answered.value;
   let queryId: number | null = null;
   if (q.q && q.offset === 0) {
     const [row] = await ctx.db
@@ -36,14 +40,16 @@ export async function search(ctx: AppContext, user: SessionUser, q: SearchQuery)
   }
   return {
     ...result,
-    engine: engine.name,
+    engine: answered.engine,
+    fallback: answered.fallback,
     tookMs: Math.round((performance.now() - started) * 10) / 10,
     queryId,
   };
 }
 
 export async function suggest(ctx: AppContext, user: SessionUser, q: string) {
-  return q.trim().length < 2 ? [] : engineOf(ctx).suggest(user, q.trim(), 8);
+  if (q.trim().length < 2) return [];
+  return (await answer(ctx, (engine) => engine.suggest(user, q.trim(), 8))).value;
 }
 
 /** The reader opened a result; from the new-ticket form, "this solved it" records a deflection. */

@@ -36,6 +36,7 @@ const messageColumns = {
   kind: ticketMessages.kind,
   body: ticketMessages.body,
   data: ticketMessages.data,
+  partOfAnswer: ticketMessages.partOfAnswer,
   authorId: users.id,
   authorName: users.name,
   authorRole: users.role,
@@ -159,6 +160,22 @@ export async function markRead(db: Executor, ticketId: number, upToId: number, r
     )
     .returning({ id: ticketMessages.id });
   return rows.map((r) => r.id);
+}
+
+/** Marks a chat message or note of this ticket as part of the answer (or not); undefined when there is none. */
+export async function setPartOfAnswer(db: Executor, ticketId: number, messageId: number, value: boolean) {
+  const [row] = await db
+    .update(ticketMessages)
+    .set({ partOfAnswer: value })
+    .where(
+      and(
+        eq(ticketMessages.id, messageId),
+        eq(ticketMessages.ticketId, ticketId),
+        ne(ticketMessages.kind, 'event'),
+      ),
+    )
+    .returning({ id: ticketMessages.id });
+  return row;
 }
 
 export async function markDelivered(db: Executor, id: number) {

@@ -6,6 +6,13 @@ import * as messages from './messages.repository';
 import * as ticketsRepo from './tickets.repository';
 import { rooms } from './rooms';
 import { announce, loadScope } from './tickets.service';
+import { scheduleRepliesMail } from '../mail/notifications';
+
+/** Which messages the desk marked as the answer is the desk's business: contractors get messages without it. */
+export function forContractors(message: Message): Message {
+  const { partOfAnswer: _desksOnly, ...rest } = message;
+  return rest;
+}
 
 export async function listMessages(
   ctx: AppContext,
@@ -14,7 +21,9 @@ export async function listMessages(
   q: { after?: number; limit: number },
 ) {
   await loadScope(ctx.db, user, ticketId);
-  return messages.listMessages(ctx.db, ticketId, { ...q, includeNotes: can(user, 'note.view') });
+  const staff = can(user, 'note.view');
+  const items = await messages.listMessages(ctx.db, ticketId, { ...q, includeNotes: staff });
+  return staff ? items : items.map(forContractors);
 }
 
 /**
@@ -35,6 +44,8 @@ export async function postMessage(
   if (isAnswer && isStaff && scope.status === 'new') nextStatus = 'open';
   if (isAnswer && !isStaff && scope.status === 'waiting-on-contractor') nextStatus = 'open';
   const stampFirstResponse = isAnswer && isStaff && !scope.firstResponseAt;
+  // A desk reply to a contractor who is not connected anywhere reaches them by e-mail, gathered.
+  const mailContractor = isStaff && isAnswer && !(await ctx.realtime.isOnline(scope.openedById));
 
   const result = await ctx.db.transaction(async (tx) => {
     const inserted = await messages.insertMessageOnce(tx, {
@@ -60,9 +71,13 @@ export async function postMessage(
         { ticketId, actorId: user.id, field: 'status', fromValue: scope.status, toValue: nextStatus },
       ]);
     }
+    if (mailContractor) await scheduleRepliesMail(ctx, tx, ticketId, scope.openedById);
     return inserted;
   });
-  if (!result.created) return (await messages.findMessage(ctx.db, result.id))!;
+  if (!result.created) {
+    const existing = (await messages.findMessage(ctx.db, result.id))!;
+    return isStaff ? existing : forContractors(existing);
+  }
   // A new message without files is known in full already; with files, read them back once.
   const message: Message =
     input.attachmentIds.length === 0
@@ -78,11 +93,12 @@ export async function postMessage(
           deliveredAt: null,
           readAt: null,
           data: null,
+          partOfAnswer: false,
         }
       : (await messages.findMessage(ctx.db, result.id))!;
   // The desk board and ticket lists show status and first response, so they hear of those changes.
   void fanOut(ctx, message, user, Boolean(nextStatus) || stampFirstResponse);
-  return message;
+  return isStaff ? message : forContractors(message);
 }
 
 /** After the commit: the author's side sees it; the other side acks it, which marks it delivered. */
@@ -100,8 +116,8 @@ export async function fanOut(ctx: AppContext, message: Message, author: SessionU
     const authorIsStaff = author.role !== 'contractor';
     const own = authorIsStaff ? rooms.ticketStaff(ticketId) : rooms.ticketContractor(ticketId);
     const other = authorIsStaff ? rooms.ticketContractor(ticketId) : rooms.ticketStaff(ticketId);
-    ctx.realtime.emit([own], 'message:new', { message });
-    if ((await ctx.realtime.deliver([other], message)) > 0) {
+    ctx.realtime.emit([own], 'message:new', { message: authorIsStaff ? message : forContractors(message) });
+    if ((await ctx.realtime.deliver([other], authorIsStaff ? forContractors(message) : message)) > 0) {
       await messages.markDelivered(ctx.db, message.id);
       ctx.realtime.emit([rooms.ticket(ticketId)], 'message:status', {
         ticketId,

@@ -4,15 +4,20 @@ import {
   idParamsSchema,
   messageCreateSchema,
   messageListQuerySchema,
+  messageMarkSchema,
+  messageParamsSchema,
   ticketCreateSchema,
   ticketListQuerySchema,
   ticketUpdateSchema,
+  writeUpCreateSchema,
 } from '../../../../shared/src/index';
 import { signedIn } from '../../lib/policies';
 import { parsed, validate } from '../../lib/validate';
 import { ticketAttachmentsRouter } from '../attachments/attachments.routes';
 import { ticketReadingsRouter } from '../readings/index';
+import { markPartOfAnswer } from './answer-marks.service';
 import { listMessages, postMessage } from './messages.service';
+import { listWriteUps, writeUpTicket } from './write-up.service';
 import { claimTicket, createTicket, getTicket, listTickets, updateTicket } from './tickets.service';
 
 const ticketId = (res: { locals: Record<string, unknown> }) => parsed(res, 'params', idParamsSchema).id;
@@ -58,6 +63,29 @@ export function ticketsRouter(ctx: AppContext): Router {
   router.post('/:id/messages', byId, validate('body', messageCreateSchema), async (req, res) => {
     const input = parsed(res, 'body', messageCreateSchema);
     res.status(201).json({ message: await postMessage(ctx, signedIn(req), ticketId(res), input) });
+  });
+
+  /** PATCH /api/tickets/:id/messages/:messageId {partOfAnswer} — staff on the ticket: mark it as part of the answer. */
+  router.patch(
+    '/:id/messages/:messageId',
+    validate('params', messageParamsSchema),
+    validate('body', messageMarkSchema),
+    async (req, res) => {
+      const { id, messageId } = parsed(res, 'params', messageParamsSchema);
+      const { partOfAnswer } = parsed(res, 'body', messageMarkSchema);
+      res.json({ message: await markPartOfAnswer(ctx, signedIn(req), id, messageId, partOfAnswer) });
+    },
+  );
+
+  /** POST /api/tickets/:id/write-up {messageIds, attachmentIds, keepSerial?} — staff, resolved tickets: a draft article in review. */
+  router.post('/:id/write-up', byId, validate('body', writeUpCreateSchema), async (req, res) => {
+    const input = parsed(res, 'body', writeUpCreateSchema);
+    res.status(201).json(await writeUpTicket(ctx, signedIn(req), ticketId(res), input));
+  });
+
+  /** GET /api/tickets/:id/write-ups — whoever may see the ticket: the articles it became that they may read. */
+  router.get('/:id/write-ups', byId, async (req, res) => {
+    res.json({ items: await listWriteUps(ctx, signedIn(req), ticketId(res)) });
   });
 
   router.use('/:id/attachments', ticketAttachmentsRouter(ctx));

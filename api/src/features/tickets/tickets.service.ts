@@ -12,6 +12,7 @@ import { authorize, can } from '../../lib/policies';
 import * as repo from './tickets.repository';
 import { equipmentExists } from '../equipment/index';
 import { rooms } from './rooms';
+import { notifyResolved, notifyTicketReceived } from '../mail/notifications';
 
 const REOPEN_DAYS = 14;
 
@@ -56,6 +57,7 @@ export async function createTicket(ctx: AppContext, user: SessionUser, input: Ti
     await repo.insertEvents(tx, [
       { ticketId, actorId: user.id, field: 'status', fromValue: null, toValue: 'new' },
     ]);
+    await notifyTicketReceived(ctx, tx, ticketId);
     return ticketId;
   });
   const ticket = (await repo.findTicket(ctx.db, id))!;
@@ -137,6 +139,8 @@ export async function updateTicket(
   await ctx.db.transaction(async (tx) => {
     await repo.updateTicketRow(tx, id, patch);
     await repo.insertEvents(tx, events);
+    // The contractor who marks their own ticket solved needs no e-mail about it.
+    if (resolving && user.role !== 'contractor') await notifyResolved(ctx, tx, id);
   });
   const ticket = (await repo.findTicket(ctx.db, id))!;
   announce(ctx, ticket);

@@ -12,6 +12,7 @@ import { AppError, handleError } from '../../lib/errors';
 import { can } from '../../lib/policies';
 import type { Io } from '../../realtime/io';
 import { deskPresence } from '../../realtime/presence';
+import { markPartOfAnswer } from './answer-marks.service';
 import { markRead, postMessage } from './messages.service';
 import { rooms } from './rooms';
 import { loadScope } from './tickets.service';
@@ -20,6 +21,7 @@ type AppSocket = Socket<ClientToServerEvents, ServerToClientEvents, Record<strin
 
 const ticketRef = z.object({ ticketId: z.number().int().positive() });
 const readSchema = ticketRef.extend({ messageId: z.number().int().positive() });
+const markSchema = readSchema.extend({ partOfAnswer: z.boolean() });
 // The same body rules as the REST route, plus which ticket.
 const sendSchema = z.intersection(ticketRef, messageCreateSchema);
 
@@ -91,6 +93,14 @@ export function registerTicketHandlers(ctx: AppContext, io: Io, socket: AppSocke
     handler(ctx, readSchema, async ({ ticketId, messageId }) => {
       await markRead(ctx, user(), ticketId, messageId);
       return {};
+    }),
+  );
+
+  socket.on(
+    'message:mark',
+    handler(ctx, markSchema, async ({ ticketId, messageId, partOfAnswer }) => {
+      const message = await markPartOfAnswer(ctx, user(), ticketId, messageId, partOfAnswer);
+      return { message };
     }),
   );
 

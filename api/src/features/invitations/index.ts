@@ -1,0 +1,1 @@
+export { invitationsRouter } from './invitations.routes';
