@@ -8,11 +8,15 @@ import { seedEquipment } from '../../api/src/db/seed/tickets';
 import { findActiveSessionUser } from '../../api/src/features/auth/auth.repository';
 import type { RunningServer } from '../../api/src/server';
 import { RELEVANCE_CASES } from './relevance.cases';
+import { useOwnDatabase } from '../support/own-database';
 
 let server: RunningServer;
 let contractor: TestClient;
 let tech: TestClient;
+let dropDatabase: () => Promise<void> = async () => {};
 beforeAll(async () => {
+  // Only the seed articles: other test files publish articles of their own in the shared database.
+  dropDatabase = await useOwnDatabase('relevance');
   server = await startTestServer();
   const { db } = testDb();
   await seedEquipment(db);
@@ -25,6 +29,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await server.stop();
   await closeTestDb();
+  await dropDatabase();
 });
 
 describe('search relevance on the seed articles (PostgreSQL)', () => {

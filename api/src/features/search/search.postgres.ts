@@ -54,10 +54,10 @@ export class PostgresSearch implements SearchEngine {
     return this.cached.groups;
   }
 
-  /** Adds the nearest known word to each single-word group that the articles never use (typos). */
   // What each typed word was corrected to (null: it needs none), kept 30 s like the synonyms: the
   // same few hundred words come back all day, and each lookup is a trigram scan of the vocabulary.
   private corrections: { at: number; words: Map<string, string | null> } = { at: 0, words: new Map() };
+  /** Adds the nearest known word to each single-word group that the articles never use (typos). */
   private async correct(groups: QueryGroup[]): Promise<QueryGroup[]> {
     const words = groups
       .filter((g) => g.terms.length === 1 && !g.prefix && /^[a-z]{4,}$/.test(g.terms[0]!))
