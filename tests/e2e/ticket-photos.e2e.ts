@@ -115,6 +115,12 @@ describe('photos in the ticket chat', () => {
         })
         .toBeGreaterThan(0);
       await page.screenshot({ path: await screenshot(page, 'ticket-photo-enlarged-phone') });
+
+      // On the desk, the keyboard opens it too: the thumbnail takes focus, Enter enlarges it.
+      const deskThumb = seen.getByRole('button', { name: /Enlarge/ });
+      await deskThumb.focus();
+      await desk.page.keyboard.press('Enter');
+      await desk.page.locator('.el-image-viewer__wrapper img.el-image-viewer__img').waitFor();
     } finally {
       await desk.close();
       await phone.close();
