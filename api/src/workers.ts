@@ -5,6 +5,7 @@ import { registerMailWorker, mailQueueSettings, MAIL_QUEUE } from './features/ma
 import { REPLIES_QUEUE, sendRepliesMail } from './features/mail/notifications';
 import { registerPasswordResetWorker } from './features/auth/password-reset.service';
 import { registerSearchWorkers } from './features/search/search.sync';
+import { registerFileSweep } from './features/attachments/sweep';
 
 /** Queues whose settings differ from the defaults in lib/jobs.ts. */
 export function jobQueueSettings(config: Config): Record<string, QueueSettings> {
@@ -17,7 +18,7 @@ export function jobQueueSettings(config: Config): Record<string, QueueSettings> 
 
 /**
  * Every background worker of the server, started once the server is up. Each feature that queues
- * jobs registers its worker here (search sync, e-mail).
+ * jobs registers its worker here (search sync, e-mail, the nightly sweep of unused files).
  */
 export async function registerWorkers(ctx: AppContext): Promise<void> {
   await registerMailWorker(ctx);
@@ -25,6 +26,7 @@ export async function registerWorkers(ctx: AppContext): Promise<void> {
     sendRepliesMail(ctx, job),
   );
   await registerPasswordResetWorker(ctx);
+  await registerFileSweep(ctx);
   // The search index follows the articles only when there is one (Meilisearch).
   if (ctx.config.MEILI_URL) await registerSearchWorkers(ctx);
 }

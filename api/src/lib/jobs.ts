@@ -16,6 +16,8 @@ export interface Jobs {
   ): Promise<void>;
   /** Waits until the queue has nothing left to do (tests and the reindex script). */
   drain(queue: string, timeoutMs?: number): Promise<void>;
+  /** Sends a job to the queue on a cron schedule (UTC); one schedule per queue, kept in PostgreSQL. */
+  schedule(queue: string, cron: string): Promise<void>;
   stop(): Promise<void>;
   readonly boss: PgBoss | null;
 }
@@ -134,6 +136,10 @@ export function createJobs(databaseUrl: string, logger: Logger, options: JobsOpt
           throw new Error(`queue ${queue} still has ${left} job(s) after ${timeoutMs} ms`);
         await new Promise((r) => setTimeout(r, 100));
       }
+    },
+    async schedule(queue, cron) {
+      await ensureQueue(queue);
+      await boss.schedule(queue, cron, {}, { tz: 'UTC' });
     },
     async stop() {
       if (!started) return;
