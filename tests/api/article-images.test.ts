@@ -5,6 +5,7 @@ import sharp from 'sharp';
 import exifr from 'exifr';
 import { closeTestDb, makeUser, testDb, unique, type MadeUser } from '../support/fixtures';
 import { TestClient, signedInClient, startTestServer } from '../support/server';
+import { phonePhoto } from '../support/photos';
 import { addArticleImage } from '../../api/src/features/articles/images.service';
 import type { RunningServer } from '../../api/src/server';
 
@@ -25,23 +26,6 @@ afterAll(async () => {
   await server.stop();
   await closeTestDb();
 });
-
-/** A photo as a phone takes it: EXIF with GPS and the camera's serial, and a rotation flag. */
-async function phonePhoto(width = 1200, height = 800) {
-  return sharp({ create: { width, height, channels: 3, background: { r: 40, g: 90, b: 160 } } })
-    .withMetadata({ orientation: 6 })
-    .withExif({
-      IFD0: { Make: 'TestCam', Model: 'Phone 1', BodySerialNumber: 'CAM-0042' },
-      IFD3: {
-        GPSLatitudeRef: 'N',
-        GPSLatitude: '42/1 21/1 0/1',
-        GPSLongitudeRef: 'W',
-        GPSLongitude: '71/1 3/1 0/1',
-      },
-    })
-    .jpeg()
-    .toBuffer();
-}
 
 async function newDraft(client = writerClient, over: Record<string, unknown> = {}) {
   const res = await client.post('/api/articles', {
@@ -87,7 +71,7 @@ async function publish(articleId: number) {
 describe('adding a picture to an article', () => {
   it('When the writer uploads a phone photo, then 201 with its address and size, and the stored file has no metadata and is upright', async () => {
     const article = await newDraft();
-    const original = await phonePhoto();
+    const original = await phonePhoto(1200, 800);
     expect((await exifr.gps(original))?.latitude).toBeCloseTo(42.35, 1);
     await writerClient.csrf();
     const res = await uploadTo(writerClient, article.id, original, 'IMG_2041.jpg');

@@ -3,6 +3,7 @@ import sharp from 'sharp';
 import exifr from 'exifr';
 import { closeTestDb, testDb } from '../support/fixtures';
 import { startTestServer } from '../support/server';
+import { phonePhoto } from '../support/photos';
 import { newClientId, ticketWorld } from '../support/tickets';
 import type { RunningServer } from '../../api/src/server';
 
@@ -14,23 +15,6 @@ afterAll(async () => {
   await server.stop();
   await closeTestDb();
 });
-
-/** A photo as a phone takes it: EXIF with GPS, the camera's serial, and a rotation flag. */
-async function phonePhoto(width = 3000, height = 2000) {
-  return sharp({ create: { width, height, channels: 3, background: { r: 180, g: 90, b: 40 } } })
-    .withMetadata({ orientation: 6 })
-    .withExif({
-      IFD0: { Make: 'TestCam', Model: 'Phone 1', BodySerialNumber: 'CAM-0042' },
-      IFD3: {
-        GPSLatitudeRef: 'N',
-        GPSLatitude: '42/1 21/1 0/1',
-        GPSLongitudeRef: 'W',
-        GPSLongitude: '71/1 3/1 0/1',
-      },
-    })
-    .jpeg()
-    .toBuffer();
-}
 
 const countAttachments = async (ticketId: number) =>
   (await testDb().pool.query('select count(*)::int n from attachments where ticket_id = $1', [ticketId]))

@@ -6,6 +6,7 @@ import type { ClientToServerEvents, ServerToClientEvents } from '../../shared/sr
 import type { Message, Ticket } from '../../shared/src/index';
 import { closeTestDb, makeAccount, makeEquipmentModel, makeUser, testDb, unique } from '../support/fixtures';
 import { signedInClient, startTestServer, type TestClient } from '../support/server';
+import { phonePhoto } from '../support/photos';
 import { newClientId, ticketWorld } from '../support/tickets';
 import type { RunningServer } from '../../api/src/server';
 
@@ -246,7 +247,7 @@ describe('writing up a resolved ticket', () => {
     const upload = await other.contractorClient.agent
       .post(`/api/tickets/${other.ticket.id}/attachments`)
       .set('X-CSRF-Token', other.contractorClient.csrfToken)
-      .attach('files', await photo(), 'plate.jpg');
+      .attach('files', await phonePhoto(400, 300), 'plate.jpg');
     expect(upload.status).toBe(201);
     await resolve(w.techClient, w.ticket.id, 'Reset the rollout switch.');
     const res = await w.techClient.post(`/api/tickets/${w.ticket.id}/write-up`, {
@@ -266,7 +267,7 @@ describe('writing up a resolved ticket', () => {
 
   it('When photos are ticked, then they are copied into the article, re-encoded without their metadata', async () => {
     const w = await writeUpWorld();
-    const original = await photo();
+    const original = await phonePhoto(400, 300);
     const upload = await w.contractorClient.agent
       .post(`/api/tickets/${w.ticket.id}/attachments`)
       .set('X-CSRF-Token', w.contractorClient.csrfToken)
@@ -432,19 +433,3 @@ describe('marking messages as part of the answer', () => {
     expect(rows.rows[0].n).toBe(0);
   });
 });
-
-/** A small JPEG with EXIF and GPS, as a phone takes it. */
-function photo() {
-  return sharp({ create: { width: 400, height: 300, channels: 3, background: { r: 120, g: 80, b: 40 } } })
-    .withExif({
-      IFD0: { Make: 'TestCam', Model: 'Phone 1' },
-      IFD3: {
-        GPSLatitudeRef: 'N',
-        GPSLatitude: '42/1 21/1 0/1',
-        GPSLongitudeRef: 'W',
-        GPSLongitude: '71/1 3/1 0/1',
-      },
-    })
-    .jpeg()
-    .toBuffer();
-}
