@@ -147,6 +147,8 @@ export type SearchFacets = z.infer<typeof searchFacetsSchema>;
 export const searchResponseSchema = z.object({
   hits: z.array(searchHitSchema),
   total: z.number().int(),
+  /** True when there are more matches than `total` (and the facets) count: show it as "300+". */
+  totalIsLowerBound: z.boolean(),
   facets: searchFacetsSchema,
   /** The engine that answered. */
   engine: z.enum(['postgres', 'meilisearch']),

@@ -9,6 +9,8 @@ export interface SearchReader {
 export interface EngineResult {
   hits: SearchHit[];
   total: number;
+  /** More matched than `total` and the facets count (the PostgreSQL engine ranks a bounded set). */
+  totalIsLowerBound?: boolean;
   facets: SearchFacets;
 }
 

@@ -40,6 +40,7 @@ export async function search(ctx: AppContext, user: SessionUser, q: SearchQuery)
   }
   return {
     ...result,
+    totalIsLowerBound: result.totalIsLowerBound ?? false,
     engine: answered.engine,
     fallback: answered.fallback,
     tookMs: Math.round((performance.now() - started) * 10) / 10,
