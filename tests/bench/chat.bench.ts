@@ -6,7 +6,8 @@
 //   ack       = send → the sender's ack (the server answers after the row is committed)
 //   delivered = send → the other side's `message:new` with the same clientId
 // The client sockets run in a child process (chat-clients.ts), so the server's peak RSS, sampled
-// every 50 ms during the exchange, is the server's own. Baseline in the same run: a bare socket.io
+// every 50 ms during the exchange, is the server's own. The e-mail the tickets cause goes to a real
+// local SMTP sink (maildev). Baseline in the same run: a bare socket.io
 // relay (no database, no auth, no checks) with the same N, M, pace and measurements.
 // Targets at N=500: ack p95 ≤ 30 ms, delivered p99 ≤ 100 ms, peak RSS ≤ 300 MB.
 //   DATABASE_URL=postgres://… npm run bench:chat [-- --sizes 50,200 --messages 10 --pace 1000]
@@ -24,6 +25,8 @@ import type { RunningServer } from '../../api/src/server';
 import { closeTestDb } from '../support/fixtures';
 import { startTestServer } from '../support/server';
 import { ticketWorld } from '../support/tickets';
+import { startMailSink } from '../../api/scripts/lib/maildev.mjs';
+import { freePort } from '../../api/scripts/lib/net.mjs';
 import type { ClientJob, ClientReport } from './chat-clients';
 
 const SIZE_LIMIT_MS = 120_000;
@@ -227,7 +230,15 @@ console.log(
       ? `one message per pair every ${PACE_MS} ms (sides taking turns; never before the previous ack).`
       : 'closed loop: each message as soon as the previous one is acknowledged (saturation).'),
 );
-const server = await startTestServer();
+// A real mail sink, as in service: each new ticket sends its "received" e-mail, and with no SMTP
+// server those would be retried all through the exchange.
+const sink = await startMailSink({
+  root: fileURLToPath(new URL('../..', import.meta.url)),
+  smtpPort: await freePort(),
+  webPort: await freePort(),
+  logFile: '/tmp/lightoff-bench-maildev.log',
+});
+const server = await startTestServer({ SMTP_PORT: String(sink.smtpPort) });
 const bare = await startBare();
 try {
   for (const n of SIZES) {
@@ -246,6 +257,7 @@ try {
 } finally {
   await bare.stop();
   await server.stop();
+  await sink.stop();
   await closeTestDb();
 }
 

@@ -111,7 +111,7 @@ function roleLinks(
 
 export async function createUser(ctx: AppContext, actor: SessionUser, input: UserCreate) {
   const links = roleLinks(input.role, input);
-  assertPasswordRule(input.password, 'password', [input.email, input.name]);
+  await assertPasswordRule(input.password, 'password', [input.email, input.name]);
   const passwordHash = await hashPassword(input.password);
   const id = await ctx.db
     .transaction(async (tx) => {

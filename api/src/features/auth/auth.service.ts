@@ -33,7 +33,7 @@ export async function changePassword(
   if (!stored || !(await verifyPassword(stored, input.current))) {
     throw AppError.validation({ current: 'This is not your current password' });
   }
-  assertPasswordRule(input.next, 'next', [user.email, user.name]);
+  await assertPasswordRule(input.next, 'next', [user.email, user.name]);
   const nextHash = await hashPassword(input.next);
   await db.transaction(async (tx) => {
     await repo.updatePasswordHash(tx, user.id, nextHash);

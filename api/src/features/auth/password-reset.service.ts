@@ -81,7 +81,7 @@ export async function checkPasswordReset(ctx: AppContext, token: string): Promis
 export async function confirmPasswordReset(ctx: AppContext, input: PasswordResetConfirm): Promise<void> {
   const now = new Date();
   const row = await usableReset(ctx, input.token, now);
-  assertPasswordRule(input.password, 'password', [row.email, row.name]);
+  await assertPasswordRule(input.password, 'password', [row.email, row.name]);
   const passwordHash = await hashPassword(input.password);
   await ctx.db.transaction(async (tx) => {
     const locked = await repo.lockReset(tx, row.id);

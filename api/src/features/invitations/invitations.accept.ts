@@ -78,7 +78,7 @@ export async function lookUpInvitation(ctx: AppContext, token: string): Promise<
 export async function acceptInvitation(ctx: AppContext, input: InvitationAccept): Promise<SessionUser> {
   const now = new Date();
   const row = await usableByToken(ctx, input.token, now);
-  assertPasswordRule(input.password, 'password', [row.email, input.name, row.accountCompany]);
+  await assertPasswordRule(input.password, 'password', [row.email, input.name, row.accountCompany]);
   const passwordHash = await hashPassword(input.password);
   const userId = await ctx.db
     .transaction(async (tx) => {

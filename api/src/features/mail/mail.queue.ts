@@ -43,6 +43,9 @@ export async function registerMailWorker(ctx: AppContext) {
     secure: config.SMTP_SECURE,
     ...(config.SMTP_USER ? { auth: { user: config.SMTP_USER, pass: config.SMTP_PASSWORD ?? '' } } : {}),
     connectionTimeout: 5_000,
+    // A burst (a hundred tickets at once) reuses a couple of SMTP connections instead of one each.
+    pool: true,
+    maxConnections: 2,
   });
   await ctx.jobs.work<OutgoingMail>(MAIL_QUEUE, async (mail, job) => {
     await transport.sendMail({
