@@ -21,6 +21,11 @@ describe('contractor home on a phone', () => {
       // Nothing sticks out sideways on a phone.
       expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
       await screenshot(page, 'contractor-home-phone');
+
+      // Their own name in the bar leads to their password and e-mail choices.
+      await page.getByRole('link', { name: /Rowan Fielding/ }).click();
+      await page.getByRole('heading', { level: 1, name: 'Change password' }).waitFor();
+      await page.getByText('E-mails from Lightoff').waitFor();
     } finally {
       await session.close();
     }
