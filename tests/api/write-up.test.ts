@@ -1,3 +1,4 @@
+import { readdir } from 'node:fs/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import sharp from 'sharp';
 import exifr from 'exifr';
@@ -13,9 +14,10 @@ import type { RunningServer } from '../../api/src/server';
 type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 let server: RunningServer;
 const sockets: ClientSocket[] = [];
+const UPLOAD_DIR = `/tmp/lightoff-test-uploads-writeup-${process.pid}`;
 
 beforeAll(async () => {
-  server = await startTestServer({ UPLOAD_DIR: `/tmp/lightoff-test-uploads-writeup-${process.pid}` });
+  server = await startTestServer({ UPLOAD_DIR });
 });
 afterAll(async () => {
   sockets.forEach((s) => s.disconnect());
@@ -263,6 +265,49 @@ describe('writing up a resolved ticket', () => {
     const bad = await w.techClient.post(`/api/tickets/${w.ticket.id}/write-up`, { messageIds: ['x'] });
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields)).toEqual(['messageIds.0']);
+  });
+
+  it('When the write-up fails after its photos were stored, then their files are removed too', async () => {
+    const w = await writeUpWorld();
+    const upload = await w.contractorClient.agent
+      .post(`/api/tickets/${w.ticket.id}/attachments`)
+      .set('X-CSRF-Token', w.contractorClient.csrfToken)
+      .attach('files', await phonePhoto(400, 300), 'plate.jpg');
+    const [jpeg] = upload.body.attachments as { id: number }[];
+    await say(w.contractorClient, w.ticket.id, 'rating plate', { attachmentIds: [jpeg!.id] });
+    await resolve(w.techClient, w.ticket.id, 'Set the low-fire pressure.');
+    // The stored files (photo and thumbnail) under the articles' folder; directories do not count.
+    const articleFiles = async () =>
+      (await readdir(`${UPLOAD_DIR}/articles`, { recursive: true }).catch(() => [] as string[])).filter((f) =>
+        /\.(jpg|jpeg|png|webp)$/.test(f),
+      );
+    const before = await articleFiles();
+    // The write-up's last statement fails (as a lost connection or a constraint would), after the
+    // photo's files were stored.
+    const fn = unique('fail_write_up_').toLowerCase();
+    const { pool } = testDb();
+    await pool.query(`create function ${fn}() returns trigger language plpgsql as $$
+      begin
+        if new.action = 'article.write-up' and (new.details->>'ticketId')::int = ${w.ticket.id} then
+          raise exception 'forced failure';
+        end if;
+        return new;
+      end $$`);
+    await pool.query(`create trigger ${fn} before insert on audit_log for each row execute function ${fn}()`);
+    try {
+      const res = await w.techClient.post(`/api/tickets/${w.ticket.id}/write-up`, {
+        attachmentIds: [jpeg!.id],
+      });
+      expect(res.status).toBe(500);
+    } finally {
+      await pool.query(`drop trigger ${fn} on audit_log`);
+      await pool.query(`drop function ${fn}()`);
+    }
+    expect((await articleFiles()).sort()).toEqual([...before].sort());
+    const left = await pool.query('select count(*)::int as n from articles where source_ticket_id = $1', [
+      w.ticket.id,
+    ]);
+    expect(left.rows[0].n).toBe(0);
   });
 
   it('When photos are ticked, then they are copied into the article, re-encoded without their metadata', async () => {

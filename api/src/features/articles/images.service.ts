@@ -26,6 +26,8 @@ export async function addArticleImage(
   ctx: Ctx,
   input: { articleId: number; uploadedById: number; bytes: Buffer; fileName: string },
   tx?: Executor,
+  /** With `tx`: collects the stored files' keys, so the caller can remove them if `tx` rolls back. */
+  storedKeys?: string[],
 ): Promise<ArticleImage> {
   const mime = await sniff(input.bytes);
   if (!mime.startsWith('image/')) {
@@ -64,6 +66,7 @@ export async function addArticleImage(
       height: processed.height,
       sha256: processed.sha256,
     });
+    storedKeys?.push(...stored);
     return {
       id: row.id,
       url: articleImageUrl(input.articleId, row.id),

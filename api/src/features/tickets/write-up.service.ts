@@ -111,55 +111,63 @@ export async function writeUpTicket(
   const notes = chosen.filter((m) => m.kind === 'internal-note').length;
 
   const slug = await uniqueSlug(ctx, title);
-  const articleId = await ctx.db.transaction(async (tx) => {
-    const id = await articlesRepo.insertArticle(tx, {
-      slug,
-      title,
-      summary,
-      body: writeUpBody(parts),
-      kind: 'troubleshooting',
-      audience: input.audience,
-      authorId: user.id,
-      sourceTicketId: ticketId,
-      // Straight into the specialists' queue; its author may still change it until it is published.
-      status: 'in-review',
-    });
-    const modelText = await articlesRepo.setModels(
-      tx,
-      id,
-      ticket.equipmentModel ? [ticket.equipmentModel.id] : [],
-    );
-    for (const [i, bytes] of photoBytes.entries()) {
-      // A neutral file name: the uploaded one may carry a customer's name.
-      const image = await addArticleImage(
-        ctx,
-        { articleId: id, uploadedById: user.id, bytes, fileName: `photo-${i + 1}` },
+  // The copied photos' files are stored as the transaction goes; if it rolls back, they go too.
+  const storedKeys: string[] = [];
+  const articleId = await ctx.db
+    .transaction(async (tx) => {
+      const id = await articlesRepo.insertArticle(tx, {
+        slug,
+        title,
+        summary,
+        body: writeUpBody(parts),
+        kind: 'troubleshooting',
+        audience: input.audience,
+        authorId: user.id,
+        sourceTicketId: ticketId,
+        // Straight into the specialists' queue; its author may still change it until it is published.
+        status: 'in-review',
+      });
+      const modelText = await articlesRepo.setModels(
         tx,
+        id,
+        ticket.equipmentModel ? [ticket.equipmentModel.id] : [],
       );
-      parts.photos.push({ url: image.url, alt: `Photo ${i + 1} from the job` });
-    }
-    const body = writeUpBody(parts);
-    await articlesRepo.updateArticleRow(tx, id, { body, modelText });
-    await articlesRepo.insertRevision(tx, {
-      articleId: id,
-      title,
-      summary,
-      body,
-      authorId: user.id,
-      note: revisionNote(ticket.number, removed, notes),
+      for (const [i, bytes] of photoBytes.entries()) {
+        // A neutral file name: the uploaded one may carry a customer's name.
+        const image = await addArticleImage(
+          ctx,
+          { articleId: id, uploadedById: user.id, bytes, fileName: `photo-${i + 1}` },
+          tx,
+          storedKeys,
+        );
+        parts.photos.push({ url: image.url, alt: `Photo ${i + 1} from the job` });
+      }
+      const body = writeUpBody(parts);
+      await articlesRepo.updateArticleRow(tx, id, { body, modelText });
+      await articlesRepo.insertRevision(tx, {
+        articleId: id,
+        title,
+        summary,
+        body,
+        authorId: user.id,
+        note: revisionNote(ticket.number, removed, notes),
+      });
+      // The search index hears of it as of any new article (it shows once published).
+      await queueSearchSync(ctx, id, tx);
+      await audit(tx, { actorId: user.id, action: 'article.create', targetType: 'article', targetId: id });
+      await audit(tx, {
+        actorId: user.id,
+        action: 'article.write-up',
+        targetType: 'article',
+        targetId: id,
+        details: { ticketId, messageIds, attachmentIds, keepSerial: input.keepSerial, removed },
+      });
+      return id;
+    })
+    .catch(async (err: unknown) => {
+      await Promise.all(storedKeys.map((key) => ctx.storage.remove(key).catch(() => {})));
+      throw err;
     });
-    // The search index hears of it as of any new article (it shows once published).
-    await queueSearchSync(ctx, id, tx);
-    await audit(tx, { actorId: user.id, action: 'article.create', targetType: 'article', targetId: id });
-    await audit(tx, {
-      actorId: user.id,
-      action: 'article.write-up',
-      targetType: 'article',
-      targetId: id,
-      details: { ticketId, messageIds, attachmentIds, keepSerial: input.keepSerial, removed },
-    });
-    return id;
-  });
   return { article: await getArticle(ctx, user, articleId), removed };
 }
 
