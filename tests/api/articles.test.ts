@@ -82,6 +82,16 @@ describe('writing and reviewing', () => {
     expect(back.body.article).toMatchObject({ status: 'draft', reviewNote: 'Add the manometer reading' });
   });
 
+  it('When a title would make the address of a knowledge-base page, then the slug gets a number and the article opens', async () => {
+    for (const title of ['Synonyms', 'Missed']) {
+      const res = await specialistClient.post('/api/articles', draft({ title }));
+      expect(res.status).toBe(201);
+      const { slug } = res.body.article;
+      expect(slug).toMatch(new RegExp(`^${title.toLowerCase()}-\\d+$`));
+      await specialistClient.get(`/api/articles/${slug}`).expect(200);
+    }
+  });
+
   it('When the body is missing its title or summary, then 400 names them', async () => {
     const res = await specialistClient.post('/api/articles', {
       body: 'x',

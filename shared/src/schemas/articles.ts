@@ -8,12 +8,16 @@ export type ArticleKind = (typeof ARTICLE_KINDS)[number];
 export type Audience = (typeof AUDIENCES)[number];
 export type ArticleStatus = (typeof ARTICLE_STATUSES)[number];
 
+/** Knowledge-base pages whose address an article's slug would hide (`/kb/<slug>`). */
+export const RESERVED_SLUGS: readonly string[] = ['new', 'missed', 'synonyms'];
+
 export const slugSchema = z
   .string()
   .trim()
   .min(3)
   .max(100)
-  .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'Lower-case letters, digits and single dashes');
+  .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'Lower-case letters, digits and single dashes')
+  .refine((slug) => !RESERVED_SLUGS.includes(slug), 'This address is taken by a knowledge-base page');
 
 const title = z.string().trim().min(5, 'Give a title of at least 5 characters').max(160);
 const summary = z.string().trim().min(10, 'Say in a sentence what it answers').max(400);

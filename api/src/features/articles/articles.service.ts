@@ -11,6 +11,7 @@ import type {
   ArticleUpdate,
   SessionUser,
 } from '../../../../shared/src/index';
+import { RESERVED_SLUGS } from '../../../../shared/src/index';
 import { audit } from '../../lib/audit';
 import { AppError } from '../../lib/errors';
 import { authorize, can } from '../../lib/policies';
@@ -33,6 +34,8 @@ export async function uniqueSlug(ctx: Ctx, title: string) {
   const base = slugify(title);
   for (let n = 1; ; n++) {
     const slug = n === 1 ? base : `${base}-${n}`;
+    // "new", "missed", "synonyms" are pages of the knowledge base: such an article gets "-2".
+    if (RESERVED_SLUGS.includes(slug)) continue;
     if (!(await repo.slugTaken(ctx.db, slug))) return slug;
   }
 }
