@@ -86,6 +86,37 @@ describe('sign-in', () => {
     await new TestClient(server).signIn(other);
   });
 
+  it('When one network fails more sign-ins than its limit, across several e-mails, then it gets 429 and another network does not', async () => {
+    // Behind a proxy the address is the forwarded one: a test network of its own, so no other
+    // test's attempts from 127.0.0.1 count against it.
+    const limited = await startTestServer({ LOGIN_LIMIT_PER_IP: '3', TRUST_PROXY: 'true' });
+    const signInFrom = async (network: string, body: { email: string; password: string }) => {
+      const client = new TestClient(limited);
+      const token = await client.csrf();
+      return client.agent
+        .post('/api/auth/login')
+        .set('X-Forwarded-For', network)
+        .set('X-CSRF-Token', token)
+        .send(body);
+    };
+    try {
+      const network = `198.51.100.${1 + Math.floor(Math.random() * 250)}`;
+      for (let i = 0; i < 3; i++) {
+        const someone = await makeUser();
+        const res = await signInFrom(network, { email: someone.email, password: 'wrong-password-1' });
+        expect(res.status).toBe(401);
+      }
+      const user = await makeUser();
+      const fourth = await signInFrom(network, { email: user.email, password: user.password });
+      expect(fourth.status).toBe(429);
+      expect(fourth.body.error.message).toMatch(/network/);
+      const elsewhere = await signInFrom('203.0.113.9', { email: user.email, password: user.password });
+      expect(elsewhere.status).toBe(200);
+    } finally {
+      await limited.stop();
+    }
+  });
+
   it('When the body is missing fields, then answers 400 naming them', async () => {
     const res = await new TestClient(server).post('/api/auth/login', { email: 'not-an-email' });
     expect(res.status).toBe(400);
