@@ -40,16 +40,36 @@ const STOP = new Set([
   'will',
 ]);
 
+interface Phrase {
+  terms: string[];
+  /** The phrase as a whole word or words: not inside a longer word or model number. */
+  re: RegExp;
+}
+
+// Built once per synonym table (the engine keeps the same array until the table changes), not for
+// every query.
+const phrasesOf = new WeakMap<string[][], Phrase[]>();
+function phrases(synonymGroups: string[][]): Phrase[] {
+  let list = phrasesOf.get(synonymGroups);
+  if (!list) {
+    list = synonymGroups
+      .flatMap((terms) => terms.map((t) => ({ term: t.toLowerCase(), terms })))
+      .sort((a, b) => b.term.length - a.term.length)
+      .map(({ term, terms }) => {
+        const escaped = term.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+        return { terms, re: new RegExp(`(^|[^a-z0-9])${escaped}(?=$|[^a-z0-9])`, 'g') };
+      });
+    phrasesOf.set(synonymGroups, list);
+  }
+  return list;
+}
+
 /** Splits a query into groups using the synonym table (longest phrase first). */
 export function groupQuery(text: string, synonymGroups: string[][]): QueryGroup[] {
   let rest = ` ${text.toLowerCase().replace(/[“”"]/g, ' ')} `;
   const groups: QueryGroup[] = [];
-  const phrases = synonymGroups
-    .flatMap((terms) => terms.map((t) => ({ term: t.toLowerCase(), terms })))
-    .sort((a, b) => b.term.length - a.term.length);
-  for (const { term, terms } of phrases) {
-    const escaped = term.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-    const re = new RegExp(`(^|[^a-z0-9])${escaped}(?=$|[^a-z0-9])`, 'g');
+  for (const { terms, re } of phrases(synonymGroups)) {
+    re.lastIndex = 0; // shared between calls: a global RegExp remembers where it stopped
     if (re.test(rest)) {
       rest = rest.replace(re, ' ');
       if (!groups.some((g) => g.terms === terms)) groups.push({ terms });

@@ -5,13 +5,7 @@ import type { SearchQuery, SearchResponse, SessionUser } from '../../../../share
 import { AppError } from '../../lib/errors';
 import { authorize } from '../../lib/policies';
 import { answer, enginesOf } from './search.engines';
-import { noFacets, type SearchEngine } from './search.engine';
-
-/** The engine configured for this server: Meilisearch when MEILI_URL is set, else PostgreSQL. */
-export function engineOf(ctx: AppContext): SearchEngine {
-  const engines = enginesOf(ctx);
-  return engines.meili ?? engines.postgres;
-}
+import { noFacets } from './search.engine';
 
 /** Runs a search and logs it (who, what, how many hits) so specialists can see what is missing. */
 export async function search(ctx: AppContext, user: SessionUser, q: SearchQuery): Promise<SearchResponse> {
@@ -20,7 +14,8 @@ export async function search(ctx: AppContext, user: SessionUser, q: SearchQuery)
     ? await answer(ctx, (engine) => engine.search(user, q))
     : {
         value: { hits: [], total: 0, facets: noFacets() },
-        engine: engineOf(ctx).name,
+        // Nothing was asked: name the engine configured for this server.
+        engine: enginesOf(ctx).meili ? ('meilisearch' as const) : ('postgres' as const),
         fallback: false,
       };
   const result = answered.value;
